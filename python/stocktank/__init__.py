@@ -1,0 +1,60 @@
+"""stocktank: reservoir-engineering screening calculations on whole numpy arrays.
+
+Field units by default (psia, degF, scf, STB, rb, cp). Every function broadcasts its inputs
+like a numpy ufunc, returns a float for scalar inputs and a float64 ndarray otherwise, runs
+with the GIL released, and raises a :class:`StocktankError` (a ``ValueError``) naming the
+argument, the value and its index for physically impossible inputs (``errors="coerce"``
+returns NaN there instead).
+
+Results are screening estimates: defer to measured laboratory PVT data, licensed engineers,
+and the regulations and reserves-reporting rules that apply to you.
+"""
+
+from . import decline, gas, material_balance, oil, relperm, units, volumetrics, water
+from ._core import (
+    ConvergenceError,
+    InvalidArgumentError,
+    InvalidOptionError,
+    InvalidRecordError,
+    OutOfRangeError,
+    ShapeError,
+    SingularError,
+    StocktankError,
+    __version__,
+)
+from .decline import *  # noqa: F401,F403
+from .gas import *  # noqa: F401,F403
+from .material_balance import *  # noqa: F401,F403
+from .oil import *  # noqa: F401,F403
+from .relperm import *  # noqa: F401,F403
+from .units import *  # noqa: F401,F403
+from .volumetrics import *  # noqa: F401,F403
+from .water import *  # noqa: F401,F403
+
+__all__ = [
+    "__version__",
+    "StocktankError",
+    "InvalidArgumentError",
+    "ShapeError",
+    "InvalidOptionError",
+    "InvalidRecordError",
+    "ConvergenceError",
+    "SingularError",
+    "OutOfRangeError",
+    "decline",
+    "gas",
+    "material_balance",
+    "oil",
+    "relperm",
+    "units",
+    "volumetrics",
+    "water",
+]
+__all__ += relperm.__all__
+__all__ += gas.__all__
+__all__ += oil.__all__
+__all__ += water.__all__
+__all__ += material_balance.__all__
+__all__ += decline.__all__
+__all__ += volumetrics.__all__
+__all__ += units.__all__

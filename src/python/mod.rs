@@ -1,0 +1,153 @@
+//! The Python binding layer: the only place pyo3 and numpy appear.
+//!
+//! One file per domain mirrors the core. Every function converts its inputs to array views,
+//! releases the GIL, calls a core array function, and converts the result back: a Python
+//! float when every array input was a scalar (0-d), a numpy float64 array otherwise.
+
+use crate::array::OnError;
+use crate::error::Error;
+use ndarray::{ArrayD, ArrayViewD};
+use numpy::{AllowTypeChange, IntoPyArray, PyArrayLikeDyn, PyUntypedArrayMethods};
+use pyo3::create_exception;
+use pyo3::exceptions::PyValueError;
+use pyo3::prelude::*;
+
+mod decline;
+mod gas;
+mod material_balance;
+mod oil;
+mod relperm;
+mod volumetrics;
+mod water;
+
+create_exception!(
+    stocktank,
+    StocktankError,
+    PyValueError,
+    "Base class of every stocktank error (a ValueError)."
+);
+create_exception!(
+    stocktank,
+    InvalidArgumentError,
+    StocktankError,
+    "A physically impossible or invalid input; the message names the argument, value and index."
+);
+create_exception!(
+    stocktank,
+    ShapeError,
+    StocktankError,
+    "Inputs whose shapes cannot be broadcast together."
+);
+create_exception!(
+    stocktank,
+    InvalidOptionError,
+    StocktankError,
+    "An option (method, policy) that is not one of the allowed choices."
+);
+create_exception!(
+    stocktank,
+    InvalidRecordError,
+    StocktankError,
+    "A row of a table or history that breaks a rule; the message names the row."
+);
+create_exception!(
+    stocktank,
+    ConvergenceError,
+    StocktankError,
+    "An iterative solver stopped without meeting its tolerance."
+);
+create_exception!(
+    stocktank,
+    SingularError,
+    StocktankError,
+    "A fit or system without a unique solution."
+);
+create_exception!(
+    stocktank,
+    OutOfRangeError,
+    StocktankError,
+    "A request outside what the data supports."
+);
+
+impl From<Error> for PyErr {
+    fn from(e: Error) -> PyErr {
+        let msg = e.to_string();
+        match e {
+            Error::InvalidArgument { .. } => InvalidArgumentError::new_err(msg),
+            Error::Shape(_) => ShapeError::new_err(msg),
+            Error::InvalidOption { .. } => InvalidOptionError::new_err(msg),
+            Error::InvalidRecord { .. } => InvalidRecordError::new_err(msg),
+            Error::NoConvergence { .. } => ConvergenceError::new_err(msg),
+            Error::Singular { .. } => SingularError::new_err(msg),
+            Error::OutOfRange(_) => OutOfRangeError::new_err(msg),
+        }
+    }
+}
+
+/// Any array-like input (float, int, list, any-dtype array), converted to float64.
+pub(crate) type In<'py> = PyArrayLikeDyn<'py, f64, AllowTypeChange>;
+
+/// Parse the `errors=` keyword.
+#[allow(dead_code)] // used by the domain bindings as they land
+pub(crate) fn on_error(s: &str) -> PyResult<OnError> {
+    Ok(OnError::parse(s)?)
+}
+
+/// Convert an array result back: a float for all-scalar inputs, else a numpy array.
+pub(crate) fn to_py(py: Python<'_>, out: ArrayD<f64>, scalar: bool) -> PyResult<Py<PyAny>> {
+    if scalar && out.len() == 1 {
+        let v = *out.iter().next().expect("one element");
+        Ok(v.into_pyobject(py)?.into_any().unbind())
+    } else {
+        Ok(out.into_pyarray(py).into_any().unbind())
+    }
+}
+
+/// Run a core array function on `N` array-like inputs with the GIL released.
+pub(crate) fn call<const N: usize, F>(py: Python<'_>, inputs: [&In<'_>; N], f: F) -> PyResult<Py<PyAny>>
+where
+    F: for<'a> FnOnce([ArrayViewD<'a, f64>; N]) -> crate::Result<ArrayD<f64>> + Send,
+{
+    let scalar = inputs.iter().all(|a| a.ndim() == 0);
+    let views = inputs.map(|a| a.as_array());
+    let out = py.detach(move || f(views))?;
+    to_py(py, out, scalar)
+}
+
+/// As [`call`] for functions with `M` outputs; returns a tuple.
+#[allow(dead_code)] // used by the domain bindings as they land
+pub(crate) fn call_multi<const N: usize, const M: usize, F>(
+    py: Python<'_>,
+    inputs: [&In<'_>; N],
+    f: F,
+) -> PyResult<Vec<Py<PyAny>>>
+where
+    F: for<'a> FnOnce([ArrayViewD<'a, f64>; N]) -> crate::Result<[ArrayD<f64>; M]> + Send,
+{
+    let scalar = inputs.iter().all(|a| a.ndim() == 0);
+    let views = inputs.map(|a| a.as_array());
+    let outs = py.detach(move || f(views))?;
+    outs.into_iter().map(|o| to_py(py, o, scalar)).collect()
+}
+
+#[pymodule]
+fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
+    let py = m.py();
+    m.add("__version__", env!("CARGO_PKG_VERSION"))?;
+    m.add("StocktankError", py.get_type::<StocktankError>())?;
+    m.add("InvalidArgumentError", py.get_type::<InvalidArgumentError>())?;
+    m.add("ShapeError", py.get_type::<ShapeError>())?;
+    m.add("InvalidOptionError", py.get_type::<InvalidOptionError>())?;
+    m.add("InvalidRecordError", py.get_type::<InvalidRecordError>())?;
+    m.add("ConvergenceError", py.get_type::<ConvergenceError>())?;
+    m.add("SingularError", py.get_type::<SingularError>())?;
+    m.add("OutOfRangeError", py.get_type::<OutOfRangeError>())?;
+    relperm::register(m)?;
+    gas::register(m)?;
+    oil::register(m)?;
+    water::register(m)?;
+    material_balance::register(m)?;
+    decline::register(m)?;
+    volumetrics::register(m)?;
+    Ok(())
+}

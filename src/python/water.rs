@@ -1,0 +1,7 @@
+//! Python bindings of [`crate::water`].
+
+use pyo3::prelude::*;
+
+pub(super) fn register(_m: &Bound<'_, PyModule>) -> PyResult<()> {
+    Ok(())
+}

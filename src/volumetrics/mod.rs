@@ -1,0 +1,2 @@
+//! Volumetric oil and gas in place, Monte Carlo uncertainty, recovery factors and
+//! displacement efficiency. Field units.
