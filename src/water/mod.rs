@@ -39,9 +39,9 @@
 //! |---|---|---|
 //! | Bw, McCain (1990) | -0.9% to +0.9% | +0.86% (100 degF, 5,000 psia); -0.91% (300 degF, 10,000 psia) |
 //! | density, McCain (1990) | -0.9% to +0.9% | mirror of Bw |
-//! | cw gas-free, Osif (1988) | -8.0% to +2.2% | -7.9% at 100 degF (below its range); within 2.7% from 150 to 300 degF |
+//! | cw gas-free, Osif (1988) | -8.0% to +2.1% | -7.9% at 100 degF (below its range); within 2.7% from 150 to 300 degF |
 //! | viscosity, McCain (1991) | -4.3% to +56% | the pressure factor gives +53% to +56% at 10,000 psia; -8.1% at 100 degF, 1 atm |
-//! | viscosity, Meehan (1980) | within about 3% | see the tests |
+//! | viscosity, Meehan (1980) | -3.1% to +3.5% | +3.5% at 300 degF, 10,000 psia |
 //!
 //! McCain's (1991) pressure factor is the published one and is kept as published; it
 //! overstates the rise of the viscosity of pure water with pressure by far more than its quoted
@@ -350,7 +350,8 @@ fn check_sc(sc: &StandardConditions) -> Result<()> {
 ///
 /// # Errors
 /// [`Error::InvalidArgument`] naming `p`, `t`, `p_sc` or `t_sc` for a non-positive pressure
-/// or a temperature below absolute zero.
+/// or a temperature below absolute zero; naming `p` also far above the range (beyond about
+/// 50,000 psia), where the polynomial is no longer a positive volume.
 ///
 /// # Accuracy
 /// Published: within 2% in range. Measured against IAPWS-95 (CoolProp) for pure water,
@@ -375,7 +376,22 @@ pub fn bw_mccain(p_psia: f64, t_f: f64, sc: &StandardConditions) -> Result<f64> 
     let p = pressure(p_psia)?;
     let t = temperature_f("t", t_f)?;
     check_sc(sc)?;
-    Ok(bw_raw(p, t) / bw_raw(sc.p_psia, sc.t_f))
+    Ok(bw_raw_checked(p, t)? / bw_raw_checked(sc.p_psia, sc.t_f)?)
+}
+
+/// [`bw_raw`], with an error where the polynomial stops being a volume (far outside range).
+#[inline]
+fn bw_raw_checked(p: f64, t: f64) -> Result<f64> {
+    let b = bw_raw(p, t);
+    if b > 0.0 {
+        Ok(b)
+    } else {
+        Err(Error::invalid(
+            "p",
+            p,
+            "too far above the range of McCain's Bw correlation (Bw would not be positive)",
+        ))
+    }
 }
 
 /// Brine density at reservoir conditions, McCain (1990): the standard-condition density
@@ -398,7 +414,8 @@ pub fn bw_mccain(p_psia: f64, t_f: f64, sc: &StandardConditions) -> Result<f64> 
 /// Density, lbm/ft3.
 ///
 /// # Errors
-/// [`Error::InvalidArgument`] naming `p`, `t` or `salinity_wt_pct`.
+/// [`Error::InvalidArgument`] naming `p`, `t` or `salinity_wt_pct`; naming `p` also far
+/// above the range, where the Bw polynomial is no longer positive.
 ///
 /// # Accuracy
 /// Measured against IAPWS-95 (CoolProp), pure water, 100-300 degF, 1,000-10,000 psia: within
@@ -418,7 +435,7 @@ pub fn density_mccain(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f64
     let p = pressure(p_psia)?;
     let t = temperature_f("t", t_f)?;
     let rho_sc = density_sc_mccain(salinity_wt_pct)?;
-    Ok(rho_sc / bw_raw(p, t))
+    Ok(rho_sc / bw_raw_checked(p, t)?)
 }
 
 // ---------------------------------------------------------------------------------------
@@ -465,7 +482,9 @@ fn rsw_salinity_factor(t: f64, s: f64) -> f64 {
 /// # Returns
 /// Rsw, standard cubic feet of gas per stock-tank barrel of water (scf/STB), at the gas
 /// saturation pressure `p`. Computed as published outside its range (it does not go to zero
-/// at atmospheric pressure, and the quadratic turns down above about 11,000 psia).
+/// at atmospheric pressure, and the quadratic turns down above about 11,000 psia), except
+/// that it is floored at 0 where the polynomial turns negative (above about 430 degF at low
+/// pressure), since a solubility cannot be negative.
 ///
 /// # Errors
 /// [`Error::InvalidArgument`] naming `p`, `t` (must be > 0 degF for the power law) or
@@ -496,7 +515,7 @@ pub fn rsw_mccain(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f64> {
     let t = positive_f(t_f)?;
     let s = salinity("salinity_wt_pct", salinity_wt_pct)?;
     let (a, b, c) = rsw_coefficients(t);
-    Ok((a + b * p + c * p * p) * rsw_salinity_factor(t, s))
+    Ok(((a + b * p + c * p * p) * rsw_salinity_factor(t, s)).max(0.0))
 }
 
 /// d(Rsw)/dp of [`rsw_mccain`], scf/STB/psi.
@@ -656,8 +675,8 @@ pub fn cw_with_gas_release(
     let bg = positive("bg_rb_per_scf", bg_rb_per_scf)?;
     check_sc(sc)?;
     // The base-state divisor cancels in dBw/dp / Bw; it scales Bg/Bw.
-    let base = bw_raw(sc.p_psia, sc.t_f);
-    let b = bw_raw(p, t);
+    let base = bw_raw_checked(sc.p_psia, sc.t_f)?;
+    let b = bw_raw_checked(p, t)?;
     let bw = b / base;
     Ok(-bw_raw_dp(p, t) / b + bg / bw * rsw_dp(p, t, s))
 }
@@ -741,11 +760,12 @@ pub fn viscosity_mccain(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f
 /// Viscosity, cp.
 ///
 /// # Errors
-/// [`Error::InvalidArgument`] naming `p`, `t` (> 0 degF) or `salinity_wt_pct`.
+/// [`Error::InvalidArgument`] naming `p`, `t` (> 0 degF) or `salinity_wt_pct`; naming `t`
+/// also where the result would not be positive (above about 1,500 degF).
 ///
 /// # Accuracy
 /// Published accuracy not at hand. Measured against IAPWS (CoolProp), pure water,
-/// 100-300 degF, 1,000-10,000 psia: within about 3% (see the module docs and tests).
+/// 100-300 degF, 1,000-10,000 psia: -3.1% to +3.5% (see the module docs and tests).
 ///
 /// # Examples
 /// ```
@@ -765,8 +785,16 @@ pub fn viscosity_meehan(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f
     let s = salinity("salinity_wt_pct", salinity_wt_pct)?;
     let a = -0.045_18 + 0.009_313 * s - 0.000_393 * s * s;
     let b = 70.634 + 0.095_76 * s * s;
-    let mu1 = a + b / t;
-    Ok(mu1 * (1.0 + 3.5e-12 * p * p * (t - 40.0)))
+    let mu = (a + b / t) * (1.0 + 3.5e-12 * p * p * (t - 40.0));
+    if mu > 0.0 {
+        Ok(mu)
+    } else {
+        Err(Error::invalid(
+            "t",
+            t,
+            "too far outside the range of Meehan's viscosity (the viscosity would not be positive)",
+        ))
+    }
 }
 
 /// The water viscosity correlation.
