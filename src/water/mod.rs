@@ -1336,6 +1336,34 @@ impl Water {
     }
 }
 
+/// A validity check (one of the `*_in_range` functions) over broadcast arrays: `true` where
+/// every input lies in the published range, `false` elsewhere and wherever an input is NaN.
+///
+/// # Errors
+/// [`Error::Shape`] for shapes that do not broadcast.
+///
+/// # Examples
+/// ```
+/// use stocktank::water::{in_range_array, bw_mccain_in_range};
+/// let p = ndarray::arr1(&[3000.0, 8000.0, f64::NAN]).into_dyn();
+/// let t = ndarray::arr0(200.0).into_dyn();
+/// let ok = in_range_array(["p", "t"], [p.view(), t.view()], |[p, t]| bw_mccain_in_range(p, t)).unwrap();
+/// assert_eq!(ok.as_slice().unwrap(), &[true, false, false]);
+/// ```
+pub fn in_range_array<const N: usize, F>(
+    names: [&'static str; N],
+    inputs: [ArrayViewD<'_, f64>; N],
+    f: F,
+) -> Result<ArrayD<bool>>
+where
+    F: Fn([f64; N]) -> bool + Sync,
+{
+    let out = lift(names, inputs, OnError::Raise, |x| {
+        Ok(if f(x) { 1.0 } else { 0.0 })
+    })?;
+    Ok(out.mapv(|v| v == 1.0))
+}
+
 /// [`bw_mccain`] over broadcast arrays (p psia, T degF).
 ///
 /// # Errors
