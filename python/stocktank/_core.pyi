@@ -90,9 +90,7 @@ class CoreyGasOil:
 
 # ---- water ---------------------------------------------------------------------------------
 
-from typing import final as _final
-
-@_final
+@final
 class Water:
     def __new__(
         cls,
