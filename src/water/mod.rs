@@ -631,6 +631,10 @@ pub fn cw_gas_saturated(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f
 /// cw = -(1/Bw) dBw/dp + (Bg / Bw) dRsw/dp
 /// ```
 /// with Bw of [`bw_mccain`], Rsw of [`rsw_mccain`] and their analytic pressure derivatives.
+/// The first term is the compressibility implied by McCain's Bw polynomial; it agrees with
+/// Osif's gas-free value near 2,000 to 5,000 psia but grows with pressure above McCain's
+/// 5,000 psia limit (about 5e-6 1/psi at 8,000 psia and 214 degF, against 2.8e-6 from
+/// Osif), so keep this function inside the published range.
 ///
 /// # Arguments
 /// * `p_psia` - pressure, psia, > 0.
