@@ -631,10 +631,12 @@ pub fn cw_gas_saturated(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f
 /// cw = -(1/Bw) dBw/dp + (Bg / Bw) dRsw/dp
 /// ```
 /// with Bw of [`bw_mccain`], Rsw of [`rsw_mccain`] and their analytic pressure derivatives.
-/// The first term is the compressibility implied by McCain's Bw polynomial; it agrees with
-/// Osif's gas-free value near 2,000 to 5,000 psia but grows with pressure above McCain's
-/// 5,000 psia limit (about 5e-6 1/psi at 8,000 psia and 214 degF, against 2.8e-6 from
-/// Osif), so keep this function inside the published range.
+/// The first term is the compressibility implied by McCain's Bw polynomial (which fits
+/// volumes, not their slope): at 214 degF it is 1.3e-6 1/psi at 1,000 psia, 2.9e-6 at
+/// 4,000, 3.4e-6 at 5,000 and 5.1e-6 at 8,000, against 3.4e-6 falling to 2.9e-6 from Osif
+/// (1988). It rises with pressure, which water does not do; above 5,000 psia (outside
+/// McCain's range) it is unphysical. The gas-release term usually dominates below the
+/// saturation pressure.
 ///
 /// # Arguments
 /// * `p_psia` - pressure, psia, > 0.
