@@ -299,9 +299,12 @@ pub fn density_sc_mccain(salinity_wt_pct: f64) -> Result<f64> {
     )?))
 }
 
+/// McCain's B at 14.696 psia and 60 degF (the default standard conditions).
+const FIELD_BW_BASE: f64 = bw_raw(14.696, 60.0);
+
 /// McCain's Bw relative to the correlation's own base state (60 degF, 14.696 psia).
 #[inline]
-fn bw_raw(p: f64, t: f64) -> f64 {
+const fn bw_raw(p: f64, t: f64) -> f64 {
     let dvt = -1.0001e-2 + 1.333_91e-4 * t + 5.506_54e-7 * t * t;
     let dvp =
         -1.953_01e-9 * p * t - 1.728_34e-13 * p * p * t - 3.589_22e-7 * p - 2.253_41e-10 * p * p;
@@ -373,10 +376,23 @@ fn check_sc(sc: &StandardConditions) -> Result<()> {
 /// Reservoir Engineering 6(2), 266-272.
 #[inline]
 pub fn bw_mccain(p_psia: f64, t_f: f64, sc: &StandardConditions) -> Result<f64> {
+    let base = bw_base(sc)?;
+    bw_over_base(p_psia, t_f, base)
+}
+
+/// McCain's B at the standard conditions: the divisor that makes Bw = 1 there.
+#[inline]
+fn bw_base(sc: &StandardConditions) -> Result<f64> {
+    check_sc(sc)?;
+    bw_raw_checked(sc.p_psia, sc.t_f)
+}
+
+/// The body of [`bw_mccain`] with the standard-condition divisor computed once.
+#[inline]
+fn bw_over_base(p_psia: f64, t_f: f64, base: f64) -> Result<f64> {
     let p = pressure(p_psia)?;
     let t = temperature_f("t", t_f)?;
-    check_sc(sc)?;
-    Ok(bw_raw_checked(p, t)? / bw_raw_checked(sc.p_psia, sc.t_f)?)
+    Ok(bw_raw_checked(p, t)? / base)
 }
 
 /// [`bw_raw`], with an error where the polynomial stops being a volume (far outside range).
@@ -1028,6 +1044,8 @@ pub struct Water {
     gas_saturated: bool,
     viscosity_method: ViscosityMethod,
     standard_conditions: StandardConditions,
+    /// McCain's B at the standard conditions (a function of them, cached).
+    bw_base: f64,
 }
 
 impl Water {
@@ -1050,6 +1068,7 @@ impl Water {
             gas_saturated: true,
             viscosity_method: ViscosityMethod::default(),
             standard_conditions: StandardConditions::default(),
+            bw_base: FIELD_BW_BASE,
         })
     }
 
@@ -1065,6 +1084,7 @@ impl Water {
             gas_saturated: true,
             viscosity_method: ViscosityMethod::default(),
             standard_conditions: StandardConditions::default(),
+            bw_base: FIELD_BW_BASE,
         }
     }
 
@@ -1106,7 +1126,7 @@ impl Water {
     /// assert!((w.bw(StandardConditions::ISO_13443.p_psia, 59.0).unwrap() - 1.0).abs() < 1e-12);
     /// ```
     pub fn with_standard_conditions(mut self, sc: StandardConditions) -> Result<Self> {
-        check_sc(&sc)?;
+        self.bw_base = bw_base(&sc)?;
         self.standard_conditions = sc;
         Ok(self)
     }
@@ -1140,7 +1160,7 @@ impl Water {
     /// ```
     #[inline]
     pub fn bw(&self, p_psia: f64, t_f: f64) -> Result<f64> {
-        bw_mccain(p_psia, t_f, &self.standard_conditions)
+        bw_over_base(p_psia, t_f, self.bw_base)
     }
 
     /// Gas solubility Rsw, scf/STB: [`rsw_mccain`] when gas-saturated, 0 when gas-free.
@@ -1389,9 +1409,9 @@ pub fn bw_mccain_array(
     sc: &StandardConditions,
     on_error: OnError,
 ) -> Result<ArrayD<f64>> {
-    check_sc(sc)?;
+    let base = bw_base(sc)?;
     lift(["p", "t"], [p_psia, t_f], on_error, |[p, t]| {
-        bw_mccain(p, t, sc)
+        bw_over_base(p, t, base)
     })
 }
 
@@ -1554,6 +1574,15 @@ mod tests {
             let b = bw_mccain(sc.p_psia, sc.t_f, &sc).unwrap();
             assert!((b - 1.0).abs() < 1e-14, "{b}");
         }
+    }
+
+    #[test]
+    fn cached_base_equals_computed_base() {
+        assert_eq!(FIELD_BW_BASE, bw_base(&StandardConditions::FIELD).unwrap());
+        let w = Water::fresh()
+            .with_standard_conditions(StandardConditions::FIELD)
+            .unwrap();
+        assert_eq!(w, Water::fresh());
     }
 
     #[test]
