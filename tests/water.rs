@@ -276,3 +276,12 @@ fn public_types_are_send_sync() {
     assert_send_sync::<ViscosityMethod>();
     assert_send_sync::<Property>();
 }
+
+#[test]
+fn mg_per_l_conversion_covers_its_whole_domain() {
+    // Upper end: 50 wt% is 10 * 50 * rho_sc(50) g/L (McCain 1990 density, extrapolated).
+    let max = 10.0 * 50.0 * density_sc_mccain(50.0).unwrap() * 0.453_592_37 / 0.3048f64.powi(3);
+    assert!((salinity_mg_per_l_to_wt_pct(max * (1.0 - 1e-12)).unwrap() - 50.0).abs() < 1e-6);
+    assert!(salinity_mg_per_l_to_wt_pct(max * 1.001).is_err());
+    assert_eq!(salinity_mg_per_l_to_wt_pct(0.0).unwrap(), 0.0);
+}

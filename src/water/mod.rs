@@ -191,14 +191,15 @@ const G_PER_L_PER_LBM_FT3: f64 = KG_PER_LBM / M3_PER_FT3;
 /// sodium chloride in the density correlation.
 ///
 /// # Arguments
-/// * `mg_per_l` - salinity, mg of dissolved solids per litre of brine, in [0, 650,000].
+/// * `mg_per_l` - salinity, mg of dissolved solids per litre of brine, in [0, about
+///   707,000] (50 wt%).
 ///
 /// # Returns
 /// Salinity, weight percent of brine.
 ///
 /// # Errors
-/// [`Error::InvalidArgument`] naming `mg_per_l` when negative, non-finite or above
-/// 650,000 mg/L (beyond 50 wt%).
+/// [`Error::InvalidArgument`] naming `mg_per_l` when negative, non-finite or beyond 50 wt%
+/// (about 707,000 mg/L).
 ///
 /// # Examples
 /// ```
@@ -218,11 +219,11 @@ pub fn salinity_mg_per_l_to_wt_pct(mg_per_l: f64) -> Result<f64> {
         return Err(Error::invalid(
             "mg_per_l",
             mg_per_l,
-            "must be finite, >= 0 and at most 50 wt% of the brine (about 650,000 mg/L)",
+            "must be finite, >= 0 and at most 50 wt% of the brine (about 707,000 mg/L)",
         ));
     }
     // f is strictly increasing on [0, 50]; Newton from the dilute guess, bisection fallback.
-    let mut s = mg_per_l / (10.0 * density_sc_raw(0.0) * G_PER_L_PER_LBM_FT3);
+    let mut s = (mg_per_l / (10.0 * density_sc_raw(0.0) * G_PER_L_PER_LBM_FT3)).min(hi);
     for _ in 0..100 {
         let fs = f(s);
         if fs.abs() <= 1e-9 * mg_per_l.max(1.0) {
@@ -1294,6 +1295,7 @@ impl Default for Water {
 
 /// The water quantities, for [`Water::property_array`] and [`Water::property`].
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+#[non_exhaustive]
 pub enum Property {
     /// Formation volume factor, rb/STB.
     Bw,
