@@ -285,3 +285,14 @@ fn mg_per_l_conversion_covers_its_whole_domain() {
     assert!(salinity_mg_per_l_to_wt_pct(max * 1.001).is_err());
     assert_eq!(salinity_mg_per_l_to_wt_pct(0.0).unwrap(), 0.0);
 }
+
+#[test]
+fn brine_viscosity_matches_handbook_values() {
+    // NaCl solutions at 20 degC (68 degF), 1 atm: 1.002 cp (0 wt%), 1.193 cp (10 wt%),
+    // 1.930 cp (26 wt%) (CRC Handbook of Chemistry and Physics, "Concentrative properties of
+    // aqueous solutions", from memory). Meehan (1980): measured -0.8% to -0.4%.
+    for (s, mu) in [(0.0, 1.002), (10.0, 1.193), (26.0, 1.930)] {
+        let d = dev(viscosity_meehan(14.696, 68.0, s).unwrap(), mu);
+        assert!(d.abs() < 0.02, "{s} wt%: {d:+.4}");
+    }
+}
