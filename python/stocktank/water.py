@@ -14,7 +14,9 @@ published accuracies and the measured deviations from IAPWS-95. Screening estima
 measured water analyses and laboratory PVT data.
 """
 
-from typing import List
+from typing import TYPE_CHECKING, Any, List
+
+import numpy as np
 
 from ._core import (
     Water,
@@ -52,4 +54,48 @@ __all__: List[str] = [
     "water_rsw_in_range",
     "water_compressibility_in_range",
     "water_viscosity_in_range",
+    "water_table",
 ]
+
+if TYPE_CHECKING:  # pragma: no cover
+    import pandas as pd
+
+
+def water_table(water: Water, p: Any, t: Any, *, errors: str = "raise") -> "pd.DataFrame":
+    """All properties of ``water`` on broadcast pressures and temperatures, as a DataFrame.
+
+    Parameters
+    ----------
+    water : Water
+        The brine description.
+    p : array_like
+        Pressure, psia.
+    t : array_like
+        Temperature, degF (broadcast against ``p``).
+    errors : {"raise", "coerce"}
+        As for the ``Water`` methods.
+
+    Returns
+    -------
+    pandas.DataFrame
+        One row per broadcast element (C order), columns with units in their names:
+        ``p_psia``, ``t_f``, ``bw_rb_per_stb``, ``rsw_scf_per_stb``, ``density_lbm_per_ft3``,
+        ``cw_per_psi`` (no free gas), ``viscosity_cp`` and ``in_range`` (inside every published
+        range). Screening estimates.
+    """
+    import pandas as pd
+
+    pb, tb = np.broadcast_arrays(np.asarray(p, dtype=np.float64), np.asarray(t, dtype=np.float64))
+    pf, tf = pb.ravel(), tb.ravel()
+    return pd.DataFrame(
+        {
+            "p_psia": pf,
+            "t_f": tf,
+            "bw_rb_per_stb": np.atleast_1d(water.bw(pf, tf, errors=errors)),
+            "rsw_scf_per_stb": np.atleast_1d(water.rsw(pf, tf, errors=errors)),
+            "density_lbm_per_ft3": np.atleast_1d(water.density(pf, tf, errors=errors)),
+            "cw_per_psi": np.atleast_1d(water.compressibility(pf, tf, errors=errors)),
+            "viscosity_cp": np.atleast_1d(water.viscosity(pf, tf, errors=errors)),
+            "in_range": np.atleast_1d(water.in_range(pf, tf)),
+        }
+    )

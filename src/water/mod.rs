@@ -479,7 +479,11 @@ fn rsw_coefficients(t: f64) -> (f64, f64, f64) {
 /// Salinity factor Rsw/Rsw,pure = 10^(-0.0840655 S T^-0.285854).
 #[inline]
 fn rsw_salinity_factor(t: f64, s: f64) -> f64 {
-    10f64.powf(-0.084_065_5 * s * t.powf(-0.285_854))
+    if s == 0.0 {
+        return 1.0;
+    }
+    // 10^x as exp(x ln 10): the same number, cheaper than powf.
+    (-0.084_065_5 * std::f64::consts::LN_10 * s * t.powf(-0.285_854)).exp()
 }
 
 /// Solubility of natural gas (methane) in brine, McCain (1991).

@@ -345,3 +345,27 @@ def test_gil_is_released():
     th.join()
     inside = [s for s in stamps if span["start"] < s < span["end"]]
     assert len(inside) > 100
+
+
+def test_water_table_dataframe():
+    pd = pytest.importorskip("pandas")
+    w = stk.Water(salinity_wt_pct=4.0)
+    df = stk.water_table(w, [[1000.0], [5000.0]], [150.0, 220.0, 280.0])
+    assert isinstance(df, pd.DataFrame) and len(df) == 6
+    assert list(df.columns) == [
+        "p_psia",
+        "t_f",
+        "bw_rb_per_stb",
+        "rsw_scf_per_stb",
+        "density_lbm_per_ft3",
+        "cw_per_psi",
+        "viscosity_cp",
+        "in_range",
+    ]
+    row = df.iloc[4]  # p = 5000, t = 220
+    assert (row.p_psia, row.t_f) == (5000.0, 220.0)
+    assert row.bw_rb_per_stb == w.bw(5000.0, 220.0)
+    assert row.viscosity_cp == w.viscosity(5000.0, 220.0)
+    assert df.in_range.dtype == bool
+    one = stk.water_table(w, 3000.0, 200.0)
+    assert len(one) == 1
