@@ -50,6 +50,13 @@ print(f"compressibility     {brine.compressibility(p_res, t_res):.3e} 1/psi")
 print(f"inside all published ranges: {brine.in_range(p_res, t_res)}")"""
     ),
     new_markdown_cell(
+        """All properties on a small grid, as a table with the units in the column names
+(`water_table` needs pandas):"""
+    ),
+    new_code_cell(
+        """stk.water_table(brine, [[2000.0], [p_res], [6000.0]], [180.0, t_res]).round(6)"""
+    ),
+    new_markdown_cell(
         """## Bw and density against pressure
 
 Every method broadcasts like numpy: a column of temperatures against a row of pressures gives a
