@@ -296,3 +296,34 @@ fn brine_viscosity_matches_handbook_values() {
         assert!(d.abs() < 0.02, "{s} wt%: {d:+.4}");
     }
 }
+
+#[test]
+fn rsw_matches_an_independent_henry_law_estimate() {
+    // (t degF, p psia, Rsw scf/STB): methane in pure water from Henry's law with the IAPWS
+    // G7-04 Henry constant (Fernandez-Prini, Alvarado and Harvey 2003; coefficients from
+    // memory), the methane fugacity coefficient of CoolProp 8.0.0 and a Krichevsky-Kasarnovsky
+    // Poynting factor with v_inf = 37 cm3/mol (from memory); computed by
+    // `methane_solubility_scf_per_stb` in tests/python/test_water.py. Its own uncertainty is
+    // several percent; McCain (1991) quotes 5%. Measured on the full grid: -10.6% to +3.3%.
+    let reference = [
+        (100.0, 1000.0, 8.802),
+        (100.0, 5000.0, 24.518),
+        (100.0, 10000.0, 33.953),
+        (150.0, 1000.0, 7.188),
+        (150.0, 5000.0, 22.233),
+        (150.0, 10000.0, 32.067),
+        (200.0, 1000.0, 6.847),
+        (200.0, 5000.0, 23.073),
+        (200.0, 10000.0, 34.544),
+        (250.0, 1000.0, 7.220),
+        (250.0, 5000.0, 26.294),
+        (250.0, 10000.0, 40.746),
+        (300.0, 1000.0, 8.087),
+        (300.0, 5000.0, 31.960),
+        (300.0, 10000.0, 51.165),
+    ];
+    for (t, p, r) in reference {
+        let d = dev(rsw_mccain(p, t, 0.0).unwrap(), r);
+        assert!(d.abs() < 0.12, "Rsw at {t} degF {p} psia: {d:+.4}");
+    }
+}
