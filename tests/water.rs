@@ -16,6 +16,9 @@
 //! | viscosity, Meehan (1980) | -3.1% | +3.5% | not at hand |
 //! | viscosity, McCain (1991), 1,000 psia | -4.3% | +2.5% | 5% (1 atm) and 4% (pressure factor) |
 //! | viscosity, McCain (1991), 10,000 psia | +52% | +56% | 4%: the published pressure factor misses pure water |
+//! | Rsw, McCain (1991), pure water, vs a Henry's-law estimate | -10.6% | +3.3% | 5% |
+//! | viscosity, Meehan (1980), NaCl brines at 68 degF, vs handbook | -0.8% | -0.4% | not at hand |
+//! | density, McCain (1990), NaCl brines at 68 degF, vs handbook | see the test | | |
 
 use stocktank::array::OnError;
 use stocktank::units::StandardConditions;
@@ -325,5 +328,21 @@ fn rsw_matches_an_independent_henry_law_estimate() {
     for (t, p, r) in reference {
         let d = dev(rsw_mccain(p, t, 0.0).unwrap(), r);
         assert!(d.abs() < 0.12, "Rsw at {t} degF {p} psia: {d:+.4}");
+    }
+}
+
+#[test]
+fn rsw_salting_out_matches_setschenow_order_of_magnitude() {
+    // Methane salting out by NaCl: log10(x_brine / x_water) = -k_s m with k_s about
+    // 0.12 kg/mol (Setschenow coefficient near 25-100 degC, from memory). 10 wt% NaCl is
+    // (10 g / 58.44 g/mol) / 0.090 kg = 1.90 mol/kg water, so the ratio is about 0.59.
+    let m = 10.0 / 58.443 / 0.090;
+    let expected = 10f64.powf(-0.12 * m);
+    for t in [150.0, 200.0, 250.0] {
+        let ratio = rsw_mccain(5000.0, t, 10.0).unwrap() / rsw_mccain(5000.0, t, 0.0).unwrap();
+        assert!(
+            (ratio / expected - 1.0).abs() < 0.15,
+            "{t} degF: {ratio:.3} vs {expected:.3}"
+        );
     }
 }
