@@ -111,7 +111,7 @@ pub fn vasquez_beggs_gas_sg_100psig(
 ///   Pb* = (Rs/gas_sg)^0.816 T^0.172 / API^0.989
 /// Petrosky–Farshad (1993):
 ///   Pb = 112.727 [ Rs^0.5774 / (gas_sg^0.8439 10^X) - 12.340 ]
-///   X = 4.561e-5 T^1.3911 - 7.916e-4 API^1.5410
+///   X = 7.916e-4 API^1.5410 - 4.561e-5 T^1.3911
 /// Al-Marhoun (1988):
 ///   Pb = 5.38088e-3 Rs^0.715082 gas_sg^-1.87784 oil_sg^3.1437 TR^1.32657
 /// ```
@@ -191,7 +191,7 @@ pub fn bubble_point(method: PbMethod, rs: f64, gas_sg: f64, api: f64, t_f: f64) 
             }
         }
         PbMethod::PetroskyFarshad => {
-            let x = 4.561e-5 * t_f.powf(1.3911) - 7.916e-4 * api.powf(1.5410);
+            let x = 7.916e-4 * api.powf(1.5410) - 4.561e-5 * t_f.powf(1.3911);
             112.727 * (rs.powf(0.5774) / (gas_sg.powf(0.8439) * 10f64.powf(x)) - 12.340)
         }
         PbMethod::AlMarhoun => {
@@ -276,7 +276,7 @@ pub fn solution_gor(method: PbMethod, p: f64, gas_sg: f64, api: f64, t_f: f64) -
             gas_sg * (10f64.powf(x) * api.powf(0.989) / t_f.powf(0.172)).powf(1.0 / 0.816)
         }
         PbMethod::PetroskyFarshad => {
-            let x = 4.561e-5 * t_f.powf(1.3911) - 7.916e-4 * api.powf(1.5410);
+            let x = 7.916e-4 * api.powf(1.5410) - 4.561e-5 * t_f.powf(1.3911);
             ((p / 112.727 + 12.340) * gas_sg.powf(0.8439) * 10f64.powf(x)).powf(1.0 / 0.5774)
         }
         PbMethod::AlMarhoun => {

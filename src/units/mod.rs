@@ -41,8 +41,7 @@ pub const KELVIN_OFFSET: f64 = 273.15;
 pub const R_SI: f64 = 8.314_462_618;
 /// Molar gas constant in field units, psia ft3 / (lbmol degR), about 10.7316.
 /// Derived from [`R_SI`]: J/(mol K) -> (Pa m3) per (mol K), times mol/lbmol and K/degR.
-pub const R_FIELD: f64 =
-    R_SI / PA_PER_PSI / M3_PER_FT3 * (KG_PER_LBM * 1000.0) / 1.8;
+pub const R_FIELD: f64 = R_SI / PA_PER_PSI / M3_PER_FT3 * (KG_PER_LBM * 1000.0) / 1.8;
 /// Molar mass of dry air, lbm/lbmol (28.9647). U.S. Standard Atmosphere (1976).
 pub const AIR_MOLAR_MASS: f64 = 28.9647;
 /// Density of pure water at 60 degF and 14.696 psia, lbm/ft3 (999.016 kg/m3 from IAPWS-95,
