@@ -7,7 +7,9 @@ use stocktank::units::StandardConditions;
 /// Six crude oils with measured PVT data as tabulated in Ahmed, T. (2006), Reservoir
 /// Engineering Handbook, 3rd ed., Gulf Professional Publishing, ch. 2 (from memory):
 /// (T degF, Pb psia, Rs scf/STB, Bob rb/STB, density at Pb lbm/ft3, API, gas_sg, psep psia, Tsep degF).
-const AHMED_SIX_OILS: [(f64, f64, f64, f64, f64, f64, f64, f64, f64); 6] = [
+type LabOil = (f64, f64, f64, f64, f64, f64, f64, f64, f64);
+
+const AHMED_SIX_OILS: [LabOil; 6] = [
     (250.0, 2377.0, 751.0, 1.528, 38.13, 47.1, 0.851, 150.0, 60.0),
     (220.0, 2620.0, 768.0, 1.474, 40.95, 40.7, 0.855, 100.0, 75.0),
     (260.0, 2051.0, 693.0, 1.529, 37.37, 48.6, 0.911, 100.0, 72.0),
@@ -16,7 +18,7 @@ const AHMED_SIX_OILS: [(f64, f64, f64, f64, f64, f64, f64, f64, f64); 6] = [
     (180.0, 4239.0, 807.0, 1.385, 46.79, 27.3, 0.848, 85.0, 173.0),
 ];
 
-fn gas_for(m_is_vb: bool, o: &(f64, f64, f64, f64, f64, f64, f64, f64, f64)) -> f64 {
+fn gas_for(m_is_vb: bool, o: &LabOil) -> f64 {
     if m_is_vb {
         vasquez_beggs_gas_sg_100psig(o.6, o.5, o.8, o.7).unwrap()
     } else {

@@ -469,6 +469,29 @@ impl OilModel {
         Ok(rs.min(self.rsi))
     }
 
+    /// Solution GOR of the oil if it were saturated at `p` (the calibrated correlation without
+    /// the cap at the initial GOR), scf/STB.
+    ///
+    /// # Errors
+    /// [`Error::InvalidArgument`] naming `p`.
+    ///
+    /// # Examples
+    /// ```
+    /// let m = stocktank::oil::Oil::new(35.0, 0.8, 600.0, 200.0).unwrap().model().unwrap();
+    /// assert!(m.rs_saturated(m.pb + 500.0).unwrap() > 600.0);
+    /// ```
+    #[inline]
+    pub fn rs_saturated(&self, p: f64) -> Result<f64> {
+        let o = &self.oil;
+        solution_gor(
+            o.methods.pb,
+            p / self.report.pb_scale,
+            self.g_for_pb(),
+            o.api,
+            o.temperature_f,
+        )
+    }
+
     /// Calibrated saturated Bo at solution GOR `rs`, rb/STB.
     ///
     /// # Errors

@@ -22,6 +22,7 @@
 pub mod bubble_point;
 pub mod fluid;
 pub mod fvf;
+pub mod table;
 pub mod viscosity;
 
 pub use bubble_point::{
@@ -32,6 +33,7 @@ pub use fvf::{
     apparent_compressibility, bo_saturated, bo_saturated_in_range, bo_undersaturated,
     co_undersaturated, oil_density, total_fvf,
 };
+pub use table::{BlackOilTable, LongTable, Rule, Violation, build_long, build_tables};
 pub use viscosity::{dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity};
 
 use crate::error::{Error, Result, positive};
