@@ -4,6 +4,7 @@ from typing import Any, Dict, Tuple, Union, overload
 
 import numpy as np
 import numpy.typing as npt
+from typing_extensions import final
 
 __version__: str
 
@@ -21,6 +22,7 @@ class OutOfRangeError(StocktankError): ...
 
 # ---- relperm -------------------------------------------------------------------------------
 
+@final
 class CoreyOilWater:
     def __new__(
         cls,
@@ -48,6 +50,7 @@ class CoreyOilWater:
     def krow(self, sw: ArrayLike) -> FloatOrArray: ...
     def __reduce__(self) -> Tuple[Any, Tuple[Any, Dict[str, float]], None]: ...
 
+@final
 class CoreyGasOil:
     def __new__(
         cls,
