@@ -33,7 +33,9 @@ pub use fvf::{
     apparent_compressibility, bo_saturated, bo_saturated_in_range, bo_undersaturated,
     co_undersaturated, oil_density, total_fvf,
 };
-pub use table::{BlackOilTable, LongTable, Rule, Violation, build_long, build_tables};
+pub use table::{
+    BlackOilTable, LongTable, Rule, Violation, build_long, build_long_results, build_tables,
+};
 pub use viscosity::{dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity};
 
 use crate::error::{Error, Result, positive};

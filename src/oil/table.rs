@@ -583,7 +583,40 @@ pub struct LongTable {
 /// assert_eq!(long.columns[0].len(), 6);
 /// ```
 pub fn build_long(oils: &[Oil], pressures: &[f64], on_error: OnError) -> Result<LongTable> {
-    let tables = build_tables(oils, pressures)?;
+    build_long_results(oils.iter().map(|o| Ok(*o)).collect(), pressures, on_error)
+}
+
+/// As [`build_long`] for fluids whose descriptions may themselves have failed to build (e.g.
+/// one row of input arrays with an impossible value): a failed description is raised as
+/// given (with `OnError::Raise`, the lowest failing row) or recorded in
+/// [`LongTable::errors`] (with `OnError::Coerce`).
+///
+/// # Errors
+/// As [`build_long`].
+///
+/// # Examples
+/// ```
+/// use stocktank::array::OnError;
+/// use stocktank::oil::{table::build_long_results, Oil};
+/// let oils = vec![Oil::new(35.0, 0.8, 600.0, 200.0), Oil::new(-1.0, 0.8, 600.0, 200.0)];
+/// let long = build_long_results(oils, &[1000.0], OnError::Coerce).unwrap();
+/// assert_eq!(long.errors[0].0, 1);
+/// ```
+pub fn build_long_results(
+    oils: Vec<Result<Oil>>,
+    pressures: &[f64],
+    on_error: OnError,
+) -> Result<LongTable> {
+    check_grid(pressures)?;
+    if on_error == OnError::Raise {
+        if let Some(e) = oils.iter().find_map(|o| o.as_ref().err()) {
+            return Err(e.clone());
+        }
+    }
+    let tables: Vec<Result<BlackOilTable>> = oils
+        .into_par_iter()
+        .map(|o| o.and_then(|o| BlackOilTable::build(&o, pressures)))
+        .collect();
     let mut out = LongTable {
         columns: vec![Vec::new(); COLUMNS.len()],
         ..LongTable::default()
