@@ -215,3 +215,27 @@ fn public_types_are_send_sync() {
     check::<CalibrationReport>();
     check::<PbMethod>();
 }
+
+#[test]
+fn closed_form_derivatives_match_central_differences() {
+    use stocktank::oil::bubble_point::solution_gor_dp;
+    use stocktank::oil::fvf::bo_saturated_drs;
+    for m in PbMethod::ALL {
+        for p in [300.0, 1500.0, 4000.0] {
+            let h = 1e-3 * p;
+            let f = |q: f64| solution_gor(*m, q, 0.8, 33.0, 190.0).unwrap();
+            let fd = (f(p + h) - f(p - h)) / (2.0 * h);
+            let d = solution_gor_dp(*m, p, 0.8, 33.0, 190.0).unwrap();
+            assert!((d / fd - 1.0).abs() < 1e-5, "{m} {p}: {d} {fd}");
+        }
+    }
+    for m in BoMethod::ALL {
+        for rs in [50.0, 400.0, 1200.0] {
+            let h = 1e-3 * rs;
+            let f = |r: f64| bo_saturated(*m, r, 0.8, 33.0, 190.0).unwrap();
+            let fd = (f(rs + h) - f(rs - h)) / (2.0 * h);
+            let d = bo_saturated_drs(*m, rs, 0.8, 33.0, 190.0).unwrap();
+            assert!((d / fd - 1.0).abs() < 1e-5, "{m} {rs}: {d} {fd}");
+        }
+    }
+}

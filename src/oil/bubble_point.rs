@@ -287,6 +287,54 @@ pub fn solution_gor(method: PbMethod, p: f64, gas_sg: f64, api: f64, t_f: f64) -
     })
 }
 
+/// Pressure derivative of the saturated solution GOR, dRs/dp, in closed form (the derivative
+/// of [`solution_gor`] with the same correlation).
+///
+/// # Formula
+/// ```text
+/// Standing:          dRs/dp = Rs / (0.83 (p + 18.2 * 1.4))
+/// Vasquez–Beggs:     dRs/dp = C2 Rs / p
+/// Glaso:             dRs/dp = Rs / (0.816 p sqrt(1.7447^2 - 4 (0.30218)(log p - 1.7669)))
+/// Petrosky–Farshad:  dRs/dp = Rs / (0.5774 (p + 112.727 * 12.340))
+/// Al-Marhoun:        dRs/dp = Rs / (0.715082 p)
+/// ```
+///
+/// # Arguments
+/// As [`solution_gor`].
+///
+/// # Returns
+/// dRs/dp, scf/STB/psi.
+///
+/// # Errors
+/// As [`solution_gor`].
+///
+/// # Examples
+/// ```
+/// use stocktank::oil::{bubble_point::solution_gor_dp, solution_gor, PbMethod};
+/// let (p, h) = (2000.0, 1e-3);
+/// let fd = (solution_gor(PbMethod::Glaso, p + h, 0.8, 35.0, 180.0).unwrap()
+///     - solution_gor(PbMethod::Glaso, p - h, 0.8, 35.0, 180.0).unwrap()) / (2.0 * h);
+/// let d = solution_gor_dp(PbMethod::Glaso, p, 0.8, 35.0, 180.0).unwrap();
+/// assert!((d / fd - 1.0).abs() < 1e-7);
+/// ```
+///
+/// # References
+/// As [`bubble_point`].
+#[inline]
+pub fn solution_gor_dp(method: PbMethod, p: f64, gas_sg: f64, api: f64, t_f: f64) -> Result<f64> {
+    let rs = solution_gor(method, p, gas_sg, api, t_f)?;
+    Ok(match method {
+        PbMethod::Standing => rs / (0.83 * (p + 18.2 * 1.4)),
+        PbMethod::VasquezBeggs => vb_coefficients(api).1 * rs / p,
+        PbMethod::Glaso => {
+            let disc = G1 * G1 - 4.0 * G2 * (p.log10() - G0);
+            rs / (0.816 * p * disc.sqrt())
+        }
+        PbMethod::PetroskyFarshad => rs / (0.5774 * (p + 112.727 * 12.340)),
+        PbMethod::AlMarhoun => rs / (AM_B * p),
+    })
+}
+
 /// The ranges of the data each bubble-point correlation was fitted to (from memory of the
 /// original papers, as tabulated in McCain 1990 and Ahmed 2006): arguments `rs` (scf/STB),
 /// `gas_sg`, `api` (degAPI), `temperature_f` (degF) and the resulting `pb` (psia).

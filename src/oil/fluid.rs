@@ -19,8 +19,10 @@
 //! raw correlation was from each measurement. When only a bubble point is given (no GOR), the
 //! GOR is the correlation's Rs at that bubble point and no pressure scale is needed.
 
-use super::bubble_point::{bubble_point, solution_gor, vasquez_beggs_gas_sg_100psig};
-use super::fvf::{bo_saturated, bo_undersaturated, co_undersaturated};
+use super::bubble_point::{
+    bubble_point, solution_gor, solution_gor_dp, vasquez_beggs_gas_sg_100psig,
+};
+use super::fvf::{bo_saturated, bo_saturated_drs, bo_undersaturated, co_undersaturated};
 use super::viscosity::{dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity};
 use super::{BoMethod, CoMethod, DeadOilViscosityMethod, PbMethod};
 use crate::error::{Error, Result, non_negative, positive, temperature_f};
@@ -492,6 +494,60 @@ impl OilModel {
         )
     }
 
+    /// Pressure derivative of [`OilModel::rs_saturated`], scf/STB/psi (closed form; with the
+    /// pressure scale k_p of the calibration, Rs'(p) = Rs,corr'(p / k_p) / k_p).
+    ///
+    /// # Errors
+    /// [`Error::InvalidArgument`] naming `p`.
+    ///
+    /// # Examples
+    /// ```
+    /// let m = stocktank::oil::Oil::new(35.0, 0.8, 600.0, 200.0).unwrap().model().unwrap();
+    /// assert!(m.rs_saturated_dp(1000.0).unwrap() > 0.0);
+    /// ```
+    #[inline]
+    pub fn rs_saturated_dp(&self, p: f64) -> Result<f64> {
+        let o = &self.oil;
+        let k = self.report.pb_scale;
+        Ok(solution_gor_dp(o.methods.pb, p / k, self.g_for_pb(), o.api, o.temperature_f)? / k)
+    }
+
+    /// Derivative of the calibrated saturated Bo with respect to Rs, rb/STB per scf/STB
+    /// (closed form, times the shrinkage scale k_B).
+    ///
+    /// # Errors
+    /// [`Error::InvalidArgument`] naming `rs`.
+    ///
+    /// # Examples
+    /// ```
+    /// let m = stocktank::oil::Oil::new(35.0, 0.8, 600.0, 200.0).unwrap().model().unwrap();
+    /// assert!(m.bo_saturated_drs(300.0).unwrap() > 0.0);
+    /// ```
+    #[inline]
+    pub fn bo_saturated_drs(&self, rs: f64) -> Result<f64> {
+        let o = &self.oil;
+        Ok(self.report.bo_scale
+            * bo_saturated_drs(o.methods.bo, rs, self.g_for_bo(), o.api, o.temperature_f)?)
+    }
+
+    /// Oil viscosity of the saturated oil holding `rs` (at or below Pb), cp (calibrated).
+    ///
+    /// # Errors
+    /// [`Error::InvalidArgument`] naming `rs`.
+    ///
+    /// # Examples
+    /// ```
+    /// let m = stocktank::oil::Oil::new(35.0, 0.8, 600.0, 200.0).unwrap().model().unwrap();
+    /// assert_eq!(m.viscosity_saturated(600.0).unwrap(), m.viscosity(m.pb).unwrap());
+    /// ```
+    #[inline]
+    pub fn viscosity_saturated(&self, rs: f64) -> Result<f64> {
+        if rs == self.rsi {
+            return Ok(self.report.mu_ob_cp);
+        }
+        Ok(self.report.mu_scale * live_oil_viscosity(self.mu_od, rs)?)
+    }
+
     /// Calibrated saturated Bo at solution GOR `rs`, rb/STB.
     ///
     /// # Errors
@@ -579,7 +635,7 @@ impl OilModel {
         if p > self.pb {
             undersaturated_oil_viscosity(p, self.pb, self.report.mu_ob_cp)
         } else {
-            Ok(self.report.mu_scale * live_oil_viscosity(self.mu_od, self.rs(p)?)?)
+            self.viscosity_saturated(self.rs(p)?)
         }
     }
 

@@ -119,6 +119,89 @@ pub fn bo_saturated(method: BoMethod, rs: f64, gas_sg: f64, api: f64, t_f: f64) 
     })
 }
 
+/// Derivative of the saturated Bo with respect to the solution GOR, dBo/dRs, in closed form
+/// (the derivative of [`bo_saturated`] with the same correlation).
+///
+/// # Formula
+/// ```text
+/// Standing:          0.00012 * 1.2 F^0.2 (gas_sg/oil_sg)^0.5,      F = Rs (gas_sg/oil_sg)^0.5 + 1.25 T
+/// Vasquez–Beggs:     C1 + (T - 60)(API/gas_sg) C3
+/// Glaso:             10^A (2.91329 - 2 (0.27683) log B*) (gas_sg/oil_sg)^0.526 / B*
+/// Petrosky–Farshad:  7.2046e-5 * 3.0936 F^2.0936 * 0.3738 Rs^-0.6262 gas_sg^0.2914 / oil_sg^0.6265
+/// Al-Marhoun:        (0.182594e-2 + 2 (0.318099e-5) F) * 0.74239 F / Rs
+/// ```
+/// Symbols as in [`bo_saturated`].
+///
+/// # Arguments
+/// As [`bo_saturated`] (`rs` > 0 for Petrosky–Farshad and Al-Marhoun).
+///
+/// # Returns
+/// dBo/dRs, rb/STB per scf/STB.
+///
+/// # Errors
+/// As [`bo_saturated`]; [`Error::InvalidArgument`] naming `rs` when it is 0 for
+/// Petrosky–Farshad or Al-Marhoun (infinite slope).
+///
+/// # Examples
+/// ```
+/// use stocktank::oil::{fvf::bo_saturated_drs, bo_saturated, BoMethod};
+/// let (rs, h) = (600.0, 1e-3);
+/// let fd = (bo_saturated(BoMethod::Glaso, rs + h, 0.8, 35.0, 180.0).unwrap()
+///     - bo_saturated(BoMethod::Glaso, rs - h, 0.8, 35.0, 180.0).unwrap()) / (2.0 * h);
+/// let d = bo_saturated_drs(BoMethod::Glaso, rs, 0.8, 35.0, 180.0).unwrap();
+/// assert!((d / fd - 1.0).abs() < 1e-6);
+/// ```
+///
+/// # References
+/// As [`bo_saturated`].
+#[inline]
+pub fn bo_saturated_drs(method: BoMethod, rs: f64, gas_sg: f64, api: f64, t_f: f64) -> Result<f64> {
+    let bo = bo_saturated(method, rs, gas_sg, api, t_f)?;
+    let oil_sg = sg_from_api(api)?;
+    let zero_rs = || {
+        Err(Error::invalid(
+            "rs",
+            rs,
+            "must be > 0 for this Bo derivative",
+        ))
+    };
+    Ok(match method {
+        BoMethod::Standing => {
+            let r = (gas_sg / oil_sg).sqrt();
+            let f = rs * r + 1.25 * t_f;
+            0.00012 * 1.2 * f.powf(0.2) * r
+        }
+        BoMethod::VasquezBeggs => {
+            let (c1, c3) = if api <= 30.0 {
+                (4.677e-4, -1.811e-8)
+            } else {
+                (4.670e-4, 1.337e-9)
+            };
+            c1 + (t_f - 60.0) * (api / gas_sg) * c3
+        }
+        BoMethod::Glaso => {
+            let r = (gas_sg / oil_sg).powf(0.526);
+            let b = rs * r + 0.968 * t_f;
+            (bo - 1.0) * (2.91329 - 2.0 * 0.27683 * b.log10()) * r / b
+        }
+        BoMethod::PetroskyFarshad => {
+            if rs <= 0.0 {
+                return zero_rs();
+            }
+            let c = gas_sg.powf(0.2914) / oil_sg.powf(0.6265);
+            let f = rs.powf(0.3738) * c + 0.24626 * t_f.powf(0.5371);
+            7.2046e-5 * 3.0936 * f.powf(2.0936) * c * 0.3738 * rs.powf(-0.6262)
+        }
+        BoMethod::AlMarhoun => {
+            if rs <= 0.0 {
+                return zero_rs();
+            }
+            let f = rs.powf(0.74239) * gas_sg.powf(0.323294) * oil_sg.powf(-1.20204);
+            (0.182594e-2 + 2.0 * 0.318099e-5 * f) * 0.74239 * f / rs
+        }
+    })
+}
+
 fn pb_method_of(method: BoMethod) -> PbMethod {
     match method {
         BoMethod::Standing => PbMethod::Standing,
