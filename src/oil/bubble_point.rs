@@ -323,7 +323,14 @@ pub fn solution_gor(method: PbMethod, p: f64, gas_sg: f64, api: f64, t_f: f64) -
 #[inline]
 pub fn solution_gor_dp(method: PbMethod, p: f64, gas_sg: f64, api: f64, t_f: f64) -> Result<f64> {
     let rs = solution_gor(method, p, gas_sg, api, t_f)?;
-    Ok(match method {
+    Ok(solution_gor_dp_given(method, p, rs, api))
+}
+
+/// dRs/dp from the already computed `rs = solution_gor(method, p, ..)` (no transcendental
+/// call except Glaso's square root and logarithm).
+#[inline]
+pub(crate) fn solution_gor_dp_given(method: PbMethod, p: f64, rs: f64, api: f64) -> f64 {
+    match method {
         PbMethod::Standing => rs / (0.83 * (p + 18.2 * 1.4)),
         PbMethod::VasquezBeggs => vb_coefficients(api).1 * rs / p,
         PbMethod::Glaso => {
@@ -332,7 +339,7 @@ pub fn solution_gor_dp(method: PbMethod, p: f64, gas_sg: f64, api: f64, t_f: f64
         }
         PbMethod::PetroskyFarshad => rs / (0.5774 * (p + 112.727 * 12.340)),
         PbMethod::AlMarhoun => rs / (AM_B * p),
-    })
+    }
 }
 
 /// The ranges of the data each bubble-point correlation was fitted to (from memory of the

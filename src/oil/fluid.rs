@@ -20,9 +20,12 @@
 //! GOR is the correlation's Rs at that bubble point and no pressure scale is needed.
 
 use super::bubble_point::{
-    bubble_point, solution_gor, solution_gor_dp, vasquez_beggs_gas_sg_100psig,
+    bubble_point, solution_gor, solution_gor_dp, solution_gor_dp_given,
+    vasquez_beggs_gas_sg_100psig,
 };
-use super::fvf::{bo_saturated, bo_saturated_drs, bo_undersaturated, co_undersaturated};
+use super::fvf::{
+    bo_saturated, bo_saturated_drs, bo_saturated_drs_given, bo_undersaturated, co_undersaturated,
+};
 use super::viscosity::{dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity};
 use super::{BoMethod, CoMethod, DeadOilViscosityMethod, PbMethod};
 use crate::error::{Error, Result, non_negative, positive, temperature_f};
@@ -528,6 +531,41 @@ impl OilModel {
         let o = &self.oil;
         Ok(self.report.bo_scale
             * bo_saturated_drs(o.methods.bo, rs, self.g_for_bo(), o.api, o.temperature_f)?)
+    }
+
+    /// Slopes of the saturated curve at `p` < Pb, (dRs/dp in scf/STB/psi, dBo/dp in
+    /// rb/STB/psi), given `rs = self.rs(p)` and `bo = self.bo_saturated(rs)` already computed
+    /// (the table builder's fast path; same closed forms as [`OilModel::rs_saturated_dp`] and
+    /// [`OilModel::bo_saturated_drs`]).
+    ///
+    /// # Errors
+    /// [`Error::InvalidArgument`] naming `rs`.
+    ///
+    /// # Examples
+    /// ```
+    /// let m = stocktank::oil::Oil::new(35.0, 0.8, 600.0, 200.0).unwrap().model().unwrap();
+    /// let rs = m.rs(1000.0).unwrap();
+    /// let bo = m.bo_saturated(rs).unwrap();
+    /// let (drs, dbo) = m.saturated_slopes(1000.0, rs, bo).unwrap();
+    /// assert!((drs - m.rs_saturated_dp(1000.0).unwrap()).abs() < 1e-12);
+    /// assert!((dbo - m.bo_saturated_drs(rs).unwrap() * drs).abs() < 1e-12);
+    /// ```
+    #[inline]
+    pub fn saturated_slopes(&self, p: f64, rs: f64, bo: f64) -> Result<(f64, f64)> {
+        let o = &self.oil;
+        let (kp, kb) = (self.report.pb_scale, self.report.bo_scale);
+        let drs = solution_gor_dp_given(o.methods.pb, p / kp, rs, o.api) / kp;
+        let bo_corr = 1.0 + (bo - 1.0) / kb;
+        let dbo_drs = kb
+            * bo_saturated_drs_given(
+                o.methods.bo,
+                rs,
+                bo_corr,
+                self.g_for_bo(),
+                o.api,
+                o.temperature_f,
+            )?;
+        Ok((drs, dbo_drs * drs))
     }
 
     /// Oil viscosity of the saturated oil holding `rs` (at or below Pb), cp (calibrated).

@@ -157,6 +157,20 @@ pub fn bo_saturated(method: BoMethod, rs: f64, gas_sg: f64, api: f64, t_f: f64) 
 #[inline]
 pub fn bo_saturated_drs(method: BoMethod, rs: f64, gas_sg: f64, api: f64, t_f: f64) -> Result<f64> {
     let bo = bo_saturated(method, rs, gas_sg, api, t_f)?;
+    bo_saturated_drs_given(method, rs, bo, gas_sg, api, t_f)
+}
+
+/// dBo/dRs from the already computed `bo = bo_saturated(method, rs, ..)` (Standing, Vasquez–
+/// Beggs and Glaso then need no power function).
+#[inline]
+pub(crate) fn bo_saturated_drs_given(
+    method: BoMethod,
+    rs: f64,
+    bo: f64,
+    gas_sg: f64,
+    api: f64,
+    t_f: f64,
+) -> Result<f64> {
     let oil_sg = sg_from_api(api)?;
     let zero_rs = || {
         Err(Error::invalid(
@@ -167,9 +181,14 @@ pub fn bo_saturated_drs(method: BoMethod, rs: f64, gas_sg: f64, api: f64, t_f: f
     };
     Ok(match method {
         BoMethod::Standing => {
+            // Bo - 0.9759 = 0.00012 F^1.2, so dBo/dRs = 1.2 (Bo - 0.9759) r / F.
             let r = (gas_sg / oil_sg).sqrt();
             let f = rs * r + 1.25 * t_f;
-            0.00012 * 1.2 * f.powf(0.2) * r
+            if f > 0.0 {
+                1.2 * (bo - 0.9759) * r / f
+            } else {
+                0.00012 * 1.2 * f.max(0.0).powf(0.2) * r
+            }
         }
         BoMethod::VasquezBeggs => {
             let (c1, c3) = if api <= 30.0 {
@@ -190,7 +209,8 @@ pub fn bo_saturated_drs(method: BoMethod, rs: f64, gas_sg: f64, api: f64, t_f: f
             }
             let c = gas_sg.powf(0.2914) / oil_sg.powf(0.6265);
             let f = rs.powf(0.3738) * c + 0.24626 * t_f.powf(0.5371);
-            7.2046e-5 * 3.0936 * f.powf(2.0936) * c * 0.3738 * rs.powf(-0.6262)
+            // Bo - 1.0113 = 7.2046e-5 F^3.0936
+            3.0936 * (bo - 1.0113) / f * c * 0.3738 * rs.powf(-0.6262)
         }
         BoMethod::AlMarhoun => {
             if rs <= 0.0 {

@@ -308,8 +308,7 @@ impl BlackOilTable {
         let gas_mw = gas.molar_mass();
         // Below and at Pb, along the saturated curve: dBo/dp = dBo/dRs * dRs/dp.
         let apparent_co = |q: f64, rs: f64, bo: f64, bg_rb: f64| -> Result<f64> {
-            let drs = model.rs_saturated_dp(q)?;
-            let dbo = model.bo_saturated_drs(rs)? * drs;
+            let (drs, dbo) = model.saturated_slopes(q, rs, bo)?;
             apparent_compressibility(bo, dbo, bg_rb, drs)
         };
         for (i, &pi) in p.iter().enumerate() {
