@@ -5,8 +5,9 @@
 //! Layout:
 //! - this module: API gravity and specific gravity, oil molar mass, the method enums;
 //! - [`bubble_point`]: bubble-point pressure Pb(Rs) and its exact inverse Rs(p) by Standing
-//!   (1947), Vasquez–Beggs (1980), Glaso (1980), Petrosky–Farshad (1993) and Al-Marhoun (1988);
-//! - [`fvf`]: saturated Bo, undersaturated compressibility and Bo, apparent compressibility
+//!   (1947), Vasquez–Beggs (1980), Glaso (1980), Petrosky–Farshad (1993) and Al-Marhoun (1988),
+//!   with the closed-form slope dRs/dp;
+//! - [`fvf`]: saturated Bo (and dBo/dRs), undersaturated compressibility and Bo, apparent compressibility
 //!   below Pb, total FVF Bt, oil density by mass balance;
 //! - [`viscosity`]: dead, saturated and undersaturated oil viscosity;
 //! - [`fluid`]: the [`Oil`] description with its calibration to measured Pb, Bo and viscosity;
@@ -26,12 +27,13 @@ pub mod table;
 pub mod viscosity;
 
 pub use bubble_point::{
-    bubble_point, bubble_point_in_range, solution_gor, vasquez_beggs_gas_sg_100psig,
+    bubble_point, bubble_point_in_range, solution_gor, solution_gor_dp,
+    vasquez_beggs_gas_sg_100psig,
 };
 pub use fluid::{Calibration, CalibrationReport, Methods, Oil, OilModel, Separator};
 pub use fvf::{
-    apparent_compressibility, bo_saturated, bo_saturated_in_range, bo_undersaturated,
-    co_undersaturated, oil_density, total_fvf,
+    apparent_compressibility, bo_saturated, bo_saturated_drs, bo_saturated_in_range,
+    bo_undersaturated, co_undersaturated, oil_density, total_fvf,
 };
 pub use table::{
     BlackOilTable, LongTable, Rule, Violation, build_long, build_long_results, build_tables,
