@@ -182,6 +182,17 @@ def bubble_point_in_range(
     *,
     method: str = "standing",
 ) -> FloatOrArray: ...
+def bo_saturated_in_range(
+    rs: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "standing",
+) -> FloatOrArray: ...
+def dead_oil_viscosity_in_range(
+    api: ArrayLike, temperature_f: ArrayLike, *, method: str = "beggs_robinson"
+) -> FloatOrArray: ...
 def vasquez_beggs_gas_sg_100psig(
     gas_sg: ArrayLike,
     api: ArrayLike,

@@ -37,7 +37,9 @@ from ._core import (
     undersaturated_oil_viscosity,
     vasquez_beggs_gas_sg_100psig,
 )
+from ._core import bo_saturated_in_range as _bo_saturated_in_range
 from ._core import bubble_point_in_range as _bubble_point_in_range
+from ._core import dead_oil_viscosity_in_range as _dead_oil_viscosity_in_range
 
 __all__ = [
     "Oil",
@@ -47,6 +49,8 @@ __all__ = [
     "bubble_point",
     "solution_gor",
     "bubble_point_in_range",
+    "bo_saturated_in_range",
+    "dead_oil_viscosity_in_range",
     "vasquez_beggs_gas_sg_100psig",
     "bo_saturated",
     "bo_undersaturated",
@@ -96,10 +100,34 @@ def bubble_point_in_range(
 ) -> Union[bool, npt.NDArray[np.bool_]]:
     """Whether rs (scf/STB), gas_sg, api (degAPI), temperature_f (degF) and the resulting
     bubble point lie inside the data ranges of the correlation (bool or bool array)."""
-    out = _bubble_point_in_range(rs, gas_sg, api, temperature_f, method=method)
+    return _as_bool(_bubble_point_in_range(rs, gas_sg, api, temperature_f, method=method))
+
+
+def _as_bool(out: Any) -> Union[bool, npt.NDArray[np.bool_]]:
     if isinstance(out, float):
         return out > 0.5
     return np.asarray(out) > 0.5
+
+
+def bo_saturated_in_range(
+    rs: npt.ArrayLike,
+    gas_sg: npt.ArrayLike,
+    api: npt.ArrayLike,
+    temperature_f: npt.ArrayLike,
+    *,
+    method: str = "standing",
+) -> Union[bool, npt.NDArray[np.bool_]]:
+    """Whether rs (scf/STB), gas_sg, api (degAPI), temperature_f (degF) and the resulting Bo
+    lie inside the data ranges of the Bo correlation (bool or bool array)."""
+    return _as_bool(_bo_saturated_in_range(rs, gas_sg, api, temperature_f, method=method))
+
+
+def dead_oil_viscosity_in_range(
+    api: npt.ArrayLike, temperature_f: npt.ArrayLike, *, method: str = "beggs_robinson"
+) -> Union[bool, npt.NDArray[np.bool_]]:
+    """Whether api (degAPI) and temperature_f (degF) lie inside the data ranges of the dead-oil
+    viscosity correlation (bool or bool array)."""
+    return _as_bool(_dead_oil_viscosity_in_range(api, temperature_f, method=method))
 
 
 def black_oil_table(oil: Oil, p: npt.ArrayLike, *, on_violation: str = "warn") -> Any:

@@ -124,6 +124,57 @@ fn bubble_point_in_range(
     })
 }
 
+/// 1.0 where rs, gas_sg, api, temperature_f and the resulting Bo lie inside the Bo
+/// correlation's data ranges, else 0.0.
+#[pyfunction]
+#[pyo3(signature = (rs, gas_sg, api, temperature_f, *, method = "standing"))]
+fn bo_saturated_in_range(
+    py: Python<'_>,
+    rs: In<'_>,
+    gas_sg: In<'_>,
+    api: In<'_>,
+    temperature_f: In<'_>,
+    method: &str,
+) -> PyResult<Py<PyAny>> {
+    let m = BoMethod::parse(method)?;
+    call(py, [&rs, &gas_sg, &api, &temperature_f], move |v| {
+        lift(
+            ["rs", "gas_sg", "api", "temperature_f"],
+            v,
+            OnError::Raise,
+            |[r, g, a, t]| {
+                Ok(if core::bo_saturated_in_range(m, r, g, a, t) {
+                    1.0
+                } else {
+                    0.0
+                })
+            },
+        )
+    })
+}
+
+/// 1.0 where api (degAPI) and temperature_f (degF) lie inside the dead-oil viscosity
+/// correlation's data ranges, else 0.0.
+#[pyfunction]
+#[pyo3(signature = (api, temperature_f, *, method = "beggs_robinson"))]
+fn dead_oil_viscosity_in_range(
+    py: Python<'_>,
+    api: In<'_>,
+    temperature_f: In<'_>,
+    method: &str,
+) -> PyResult<Py<PyAny>> {
+    let m = DeadOilViscosityMethod::parse(method)?;
+    call(py, [&api, &temperature_f], move |v| {
+        lift(["api", "temperature_f"], v, OnError::Raise, |[a, t]| {
+            Ok(if core::viscosity::dead_oil_viscosity_in_range(m, a, t) {
+                1.0
+            } else {
+                0.0
+            })
+        })
+    })
+}
+
 /// Gas gravity corrected to 100 psig separator pressure (Vasquez–Beggs 1980).
 #[pyfunction]
 #[pyo3(signature = (gas_sg, api, separator_t, separator_p, *, errors = "raise"))]
@@ -557,6 +608,19 @@ impl Oil {
         d.set_item("mu_ob_correlation_cp", r.mu_ob_correlation_cp)?;
         d.set_item("mu_ob_cp", r.mu_ob_cp)?;
         d.set_item("mu_scale", r.mu_scale)?;
+        // Raw correlation minus the value used, in percent of it (0 without a measurement).
+        d.set_item(
+            "pb_deviation_pct",
+            100.0 * (r.pb_correlation_psia / r.pb_psia - 1.0),
+        )?;
+        d.set_item(
+            "bob_deviation_pct",
+            100.0 * (r.bob_correlation / r.bob - 1.0),
+        )?;
+        d.set_item(
+            "mu_ob_deviation_pct",
+            100.0 * (r.mu_ob_correlation_cp / r.mu_ob_cp - 1.0),
+        )?;
         Ok(d)
     }
     /// Solution GOR at pressure p (psia), scf/STB.
@@ -812,6 +876,8 @@ pub(super) fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(bubble_point, m)?)?;
     m.add_function(wrap_pyfunction!(solution_gor, m)?)?;
     m.add_function(wrap_pyfunction!(bubble_point_in_range, m)?)?;
+    m.add_function(wrap_pyfunction!(bo_saturated_in_range, m)?)?;
+    m.add_function(wrap_pyfunction!(dead_oil_viscosity_in_range, m)?)?;
     m.add_function(wrap_pyfunction!(vasquez_beggs_gas_sg_100psig, m)?)?;
     m.add_function(wrap_pyfunction!(bo_saturated, m)?)?;
     m.add_function(wrap_pyfunction!(co_undersaturated, m)?)?;

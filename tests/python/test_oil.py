@@ -126,6 +126,7 @@ def test_calibration_honours_measurements_and_reports_raw():
     r = o.calibration_report()
     assert r["pb_correlation_psia"] == pytest.approx(2181, rel=2e-3)  # Standing, Ahmed (from memory)
     assert r["pb_psia"] == 2377.0
+    assert r["pb_deviation_pct"] == pytest.approx(100 * (r["pb_correlation_psia"] / 2377.0 - 1))
     assert o.bubble_point() == 2377.0
     assert o.rs(2377.0) == pytest.approx(751.0, rel=1e-12)
     assert o.bo(2377.0) == pytest.approx(1.528, rel=1e-12)
@@ -275,3 +276,11 @@ def test_apparent_co_matches_numpy_gradient(method):
     pp, bo, rs, bg = (tab[k][below] for k in ("p", "bo", "rs", "bg"))
     co = -np.gradient(bo, pp) / bo + bg / 5.614583333333333 * np.gradient(rs, pp) / bo
     np.testing.assert_allclose(tab["co"][below][5:-5], co[5:-5], rtol=1e-4)
+
+
+def test_validity_functions_return_bools():
+    assert so.bubble_point_in_range(500.0, 0.75, 35.0, 180.0) is True
+    assert so.bubble_point_in_range(500.0, 0.75, 35.0, 350.0) is False
+    out = so.bo_saturated_in_range([50.0, 600.0], 0.75, 35.0, 180.0, method="petrosky_farshad")
+    assert out.dtype == np.bool_ and list(out) == [False, True]
+    assert so.dead_oil_viscosity_in_range(60.0, 150.0, method="glaso") is False
