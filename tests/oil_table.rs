@@ -175,3 +175,52 @@ fn table_types_are_send_sync() {
     check::<Violation>();
     check::<table::LongTable>();
 }
+
+#[test]
+fn every_method_builds_finite_tables_inside_its_own_ranges() {
+    // For each author's Pb and Bo pair, random oils inside that author's data ranges must give
+    // tables with only finite values (whatever the consistency check says).
+    use stocktank::oil::bubble_point::bubble_point_ranges;
+    let p = grid(30, 100.0, 7000.0);
+    for (m, b) in PbMethod::ALL.iter().zip(BoMethod::ALL) {
+        let r = bubble_point_ranges(*m);
+        let range = |arg: &str| {
+            r.iter()
+                .find(|x| x.arg == arg)
+                .map(|x| (x.min, x.max))
+                .unwrap()
+        };
+        let mut rng = Rng(11);
+        let mut built = 0;
+        for _ in 0..200 {
+            let pick = |rng: &mut Rng, arg: &str| {
+                let (lo, hi) = range(arg);
+                rng.uniform(lo, hi)
+            };
+            let (api, g, t, gor) = (
+                pick(&mut rng, "api"),
+                pick(&mut rng, "gas_sg"),
+                pick(&mut rng, "temperature_f"),
+                pick(&mut rng, "rs"),
+            );
+            if !bubble_point_in_range(*m, gor, g, api, t) || gor < 1.0 {
+                continue;
+            }
+            let methods = Methods {
+                pb: *m,
+                bo: *b,
+                ..Methods::default()
+            };
+            let oil = Oil::new(api, g, gor, t).unwrap().with_methods(methods);
+            let tab = BlackOilTable::build(&oil, &p).unwrap();
+            for (name, _) in COLUMNS {
+                assert!(
+                    tab.column(name).unwrap().iter().all(|x| x.is_finite()),
+                    "{m} {name}"
+                );
+            }
+            built += 1;
+        }
+        assert!(built > 20, "{m}: {built}");
+    }
+}
