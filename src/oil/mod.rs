@@ -4,7 +4,7 @@
 //!
 //! Layout:
 //! - this module: API gravity and specific gravity, oil molar mass, the method enums;
-//! - [`bubble_point`]: bubble-point pressure Pb(Rs) and its exact inverse Rs(p) by Standing
+//! - [`bubble_point`](mod@bubble_point): bubble-point pressure Pb(Rs) and its exact inverse Rs(p) by Standing
 //!   (1947), Vasquez–Beggs (1980), Glaso (1980), Petrosky–Farshad (1993) and Al-Marhoun (1988),
 //!   with the closed-form slope dRs/dp;
 //! - [`fvf`]: saturated Bo (and dBo/dRs), undersaturated compressibility and Bo, apparent compressibility
