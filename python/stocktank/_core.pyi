@@ -84,8 +84,347 @@ class CoreyGasOil:
 
 # ---- gas -----------------------------------------------------------------------------------
 
+from typing import final as _final
+
+def z_factor(ppr: ArrayLike, tpr: ArrayLike, *, method: str = "dak", errors: str = "raise") -> FloatOrArray: ...
+def pseudo_reduced_compressibility(
+    ppr: ArrayLike, tpr: ArrayLike, *, method: str = "dak", errors: str = "raise"
+) -> FloatOrArray: ...
+def z_factor_in_range(ppr: ArrayLike, tpr: ArrayLike, *, method: str = "dak") -> Union[bool, npt.NDArray[np.bool_]]: ...
+def pseudo_critical(
+    gas_sg: ArrayLike, *, method: str = "sutton", errors: str = "raise"
+) -> Tuple[FloatOrArray, FloatOrArray]: ...
+def pseudo_critical_in_range(gas_sg: ArrayLike, *, method: str = "sutton") -> Union[bool, npt.NDArray[np.bool_]]: ...
+def wichert_aziz(
+    tpc_r: ArrayLike, ppc_psia: ArrayLike, co2: ArrayLike, h2s: ArrayLike, *, errors: str = "raise"
+) -> Tuple[FloatOrArray, FloatOrArray]: ...
+def pseudo_critical_kay(
+    *,
+    n2: Union[ArrayLike, None] = None,
+    co2: Union[ArrayLike, None] = None,
+    h2s: Union[ArrayLike, None] = None,
+    c1: Union[ArrayLike, None] = None,
+    c2: Union[ArrayLike, None] = None,
+    c3: Union[ArrayLike, None] = None,
+    ic4: Union[ArrayLike, None] = None,
+    nc4: Union[ArrayLike, None] = None,
+    ic5: Union[ArrayLike, None] = None,
+    nc5: Union[ArrayLike, None] = None,
+    c6: Union[ArrayLike, None] = None,
+    c7plus: Union[ArrayLike, None] = None,
+    c7plus_mw: Union[ArrayLike, None] = None,
+    c7plus_sg: Union[ArrayLike, None] = None,
+    errors: str = "raise",
+) -> Tuple[FloatOrArray, FloatOrArray, FloatOrArray]: ...
+def bg(
+    p_psia: ArrayLike, t_f: ArrayLike, z: ArrayLike, *, p_sc: float = 14.696, t_sc: float = 60.0, errors: str = "raise"
+) -> FloatOrArray: ...
+def gas_density(
+    p_psia: ArrayLike, t_f: ArrayLike, z: ArrayLike, gas_sg: ArrayLike, *, errors: str = "raise"
+) -> FloatOrArray: ...
+def viscosity_lee_gonzalez_eakin(
+    t_f: ArrayLike, density_lbm_ft3: ArrayLike, molar_mass: ArrayLike, *, errors: str = "raise"
+) -> FloatOrArray: ...
+def recombined_gas_sg(
+    separator_gor: ArrayLike,
+    separator_gas_sg: ArrayLike,
+    condensate_api: ArrayLike,
+    *,
+    stock_tank_gor: Union[ArrayLike, None] = None,
+    stock_tank_gas_sg: Union[ArrayLike, None] = None,
+    condensate_mw: Union[ArrayLike, None] = None,
+    p_sc: float = 14.696,
+    t_sc: float = 60.0,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def gas_equivalent(
+    condensate_sg: ArrayLike, condensate_mw: ArrayLike, *, p_sc: float = 14.696, t_sc: float = 60.0, errors: str = "raise"
+) -> FloatOrArray: ...
+def condensate_molar_mass(condensate_api: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+
+@_final
+class Gas:
+    def __new__(
+        cls,
+        gas_sg: float,
+        *,
+        co2: float = 0.0,
+        h2s: float = 0.0,
+        n2: float = 0.0,
+        pseudo_critical: Union[str, None] = "sutton",
+        impurity_correction: str = "wichert_aziz",
+        tpc_r: Union[float, None] = None,
+        ppc_psia: Union[float, None] = None,
+        z_method: str = "dak",
+        viscosity_method: str = "lee_gonzalez_eakin",
+    ) -> Gas: ...
+    @staticmethod
+    def from_composition(
+        *,
+        n2: float = 0.0,
+        co2: float = 0.0,
+        h2s: float = 0.0,
+        c1: float = 0.0,
+        c2: float = 0.0,
+        c3: float = 0.0,
+        ic4: float = 0.0,
+        nc4: float = 0.0,
+        ic5: float = 0.0,
+        nc5: float = 0.0,
+        c6: float = 0.0,
+        c7plus: float = 0.0,
+        c7plus_mw: float = 0.0,
+        c7plus_sg: float = 0.0,
+        z_method: str = "dak",
+        viscosity_method: str = "lee_gonzalez_eakin",
+    ) -> Gas: ...
+    @property
+    def gas_sg(self) -> float: ...
+    @property
+    def co2(self) -> float: ...
+    @property
+    def h2s(self) -> float: ...
+    @property
+    def n2(self) -> float: ...
+    @property
+    def pseudo_critical(self) -> Union[str, None]: ...
+    @property
+    def impurity_correction(self) -> str: ...
+    @property
+    def z_method(self) -> str: ...
+    @property
+    def viscosity_method(self) -> str: ...
+    @property
+    def tpc_r(self) -> float: ...
+    @property
+    def ppc_psia(self) -> float: ...
+    @property
+    def molar_mass(self) -> float: ...
+    def z(self, p_psia: ArrayLike, t_f: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def bg(
+        self, p_psia: ArrayLike, t_f: ArrayLike, *, p_sc: float = 14.696, t_sc: float = 60.0, errors: str = "raise"
+    ) -> FloatOrArray: ...
+    def bg_rb_per_mscf(
+        self, p_psia: ArrayLike, t_f: ArrayLike, *, p_sc: float = 14.696, t_sc: float = 60.0, errors: str = "raise"
+    ) -> FloatOrArray: ...
+    def eg(
+        self, p_psia: ArrayLike, t_f: ArrayLike, *, p_sc: float = 14.696, t_sc: float = 60.0, errors: str = "raise"
+    ) -> FloatOrArray: ...
+    def density(self, p_psia: ArrayLike, t_f: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def viscosity(self, p_psia: ArrayLike, t_f: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def cg(self, p_psia: ArrayLike, t_f: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def pseudo_pressure(self, p_psia: ArrayLike, t_f: float, *, errors: str = "raise") -> FloatOrArray: ...
+    def in_range(self, p_psia: ArrayLike, t_f: ArrayLike) -> Dict[str, Union[bool, npt.NDArray[np.bool_]]]: ...
+    def __eq__(self, other: object, /) -> bool: ...
+    def __reduce__(self) -> Tuple[Any, Tuple[Any, Dict[str, Any]], None]: ...
+
 
 # ---- oil -----------------------------------------------------------------------------------
+
+from typing import List as _List, Optional as _Optional, Sequence as _Sequence
+
+@final
+class Oil:
+    def __new__(
+        cls,
+        *,
+        api: float,
+        gas_sg: float,
+        temperature_f: float,
+        gor: _Optional[float] = None,
+        pb: _Optional[float] = None,
+        bob: _Optional[float] = None,
+        mu_ob: _Optional[float] = None,
+        pb_method: str = "standing",
+        bo_method: str = "standing",
+        co_method: str = "vasquez_beggs",
+        dead_oil_viscosity_method: str = "beggs_robinson",
+        separator_p: _Optional[float] = None,
+        separator_t: _Optional[float] = None,
+        salinity_wt_pct: float = 0.0,
+        p_sc: float = 14.696,
+        t_sc: float = 60.0,
+    ) -> Oil: ...
+    @property
+    def api(self) -> float: ...
+    @property
+    def gas_sg(self) -> float: ...
+    @property
+    def temperature_f(self) -> float: ...
+    @property
+    def gor(self) -> _Optional[float]: ...
+    @property
+    def pb(self) -> _Optional[float]: ...
+    @property
+    def bob(self) -> _Optional[float]: ...
+    @property
+    def mu_ob(self) -> _Optional[float]: ...
+    @property
+    def pb_method(self) -> str: ...
+    @property
+    def bo_method(self) -> str: ...
+    @property
+    def co_method(self) -> str: ...
+    @property
+    def dead_oil_viscosity_method(self) -> str: ...
+    @property
+    def separator_p(self) -> _Optional[float]: ...
+    @property
+    def separator_t(self) -> _Optional[float]: ...
+    @property
+    def salinity_wt_pct(self) -> float: ...
+    @property
+    def p_sc(self) -> float: ...
+    @property
+    def t_sc(self) -> float: ...
+    def bubble_point(self) -> float: ...
+    def rsi(self) -> float: ...
+    def calibration_report(self) -> Dict[str, float]: ...
+    def rs(self, p: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def bo(self, p: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def viscosity(self, p: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def table(self, p: _Sequence[float]) -> Dict[str, npt.NDArray[Any]]: ...
+    def check_table(self, p: _Sequence[float]) -> _List[Tuple[float, str, str]]: ...
+    def __reduce__(self) -> Tuple[Any, Tuple[Any, Dict[str, Any]], None]: ...
+
+def sg_from_api(api: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+def api_from_sg(oil_sg: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+def oil_molar_mass(api: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+def bubble_point(
+    rs: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "standing",
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def solution_gor(
+    p: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "standing",
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def bubble_point_in_range(
+    rs: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "standing",
+) -> FloatOrArray: ...
+def bo_saturated_in_range(
+    rs: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "standing",
+) -> FloatOrArray: ...
+def dead_oil_viscosity_in_range(
+    api: ArrayLike, temperature_f: ArrayLike, *, method: str = "beggs_robinson"
+) -> FloatOrArray: ...
+def vasquez_beggs_gas_sg_100psig(
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    separator_t: ArrayLike,
+    separator_p: ArrayLike,
+    *,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def bo_saturated(
+    rs: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "standing",
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def co_undersaturated(
+    p: ArrayLike,
+    rsb: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "vasquez_beggs",
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def bo_undersaturated(
+    p: ArrayLike,
+    pb: ArrayLike,
+    bob: ArrayLike,
+    rsb: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "vasquez_beggs",
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def apparent_compressibility(
+    bo: ArrayLike,
+    dbo_dp: ArrayLike,
+    bg_rb_per_scf: ArrayLike,
+    drs_dp: ArrayLike,
+    *,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def total_fvf(
+    bo: ArrayLike,
+    bg_rb_per_scf: ArrayLike,
+    rsi: ArrayLike,
+    rs: ArrayLike,
+    *,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def oil_density(
+    rs: ArrayLike,
+    bo: ArrayLike,
+    gas_sg: ArrayLike,
+    api: ArrayLike,
+    *,
+    p_sc: float = 14.696,
+    t_sc: float = 60.0,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def dead_oil_viscosity(
+    api: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    method: str = "beggs_robinson",
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def live_oil_viscosity(mu_od: ArrayLike, rs: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+def undersaturated_oil_viscosity(
+    p: ArrayLike, pb: ArrayLike, mu_ob: ArrayLike, *, errors: str = "raise"
+) -> FloatOrArray: ...
+def black_oil_tables(
+    p: _Sequence[float],
+    api: ArrayLike,
+    gas_sg: ArrayLike,
+    temperature_f: ArrayLike,
+    *,
+    gor: _Optional[ArrayLike] = None,
+    pb: _Optional[ArrayLike] = None,
+    bob: _Optional[ArrayLike] = None,
+    mu_ob: _Optional[ArrayLike] = None,
+    separator_p: _Optional[ArrayLike] = None,
+    separator_t: _Optional[ArrayLike] = None,
+    salinity_wt_pct: _Optional[ArrayLike] = None,
+    pb_method: str = "standing",
+    bo_method: str = "standing",
+    co_method: str = "vasquez_beggs",
+    dead_oil_viscosity_method: str = "beggs_robinson",
+    p_sc: float = 14.696,
+    t_sc: float = 60.0,
+    errors: str = "raise",
+) -> Dict[str, Any]: ...
+def table_columns() -> _List[Tuple[str, str]]: ...
 
 
 # ---- water ---------------------------------------------------------------------------------
