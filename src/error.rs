@@ -201,7 +201,10 @@ mod tests {
     #[test]
     fn message_names_argument_value_and_index() {
         let e = Error::invalid("p", -3.0, "must be > 0").at_index(&[2, 5]);
-        assert_eq!(e.to_string(), "invalid `p` = -3 at index (2, 5): must be > 0");
+        assert_eq!(
+            e.to_string(),
+            "invalid `p` = -3 at index (2, 5): must be > 0"
+        );
         let e = Error::invalid("p", -3.0, "must be > 0").at_index(&[7]);
         assert_eq!(e.to_string(), "invalid `p` = -3 at index 7: must be > 0");
     }

@@ -29,7 +29,11 @@ fn end_point(arg: &'static str, v: f64) -> Result<f64> {
     if v > 0.0 && v <= 1.0 {
         Ok(v)
     } else {
-        Err(Error::invalid(arg, v, "end-point relative permeability must lie in (0, 1]"))
+        Err(Error::invalid(
+            arg,
+            v,
+            "end-point relative permeability must lie in (0, 1]",
+        ))
     }
 }
 

@@ -104,7 +104,11 @@ pub(crate) fn to_py(py: Python<'_>, out: ArrayD<f64>, scalar: bool) -> PyResult<
 }
 
 /// Run a core array function on `N` array-like inputs with the GIL released.
-pub(crate) fn call<const N: usize, F>(py: Python<'_>, inputs: [&In<'_>; N], f: F) -> PyResult<Py<PyAny>>
+pub(crate) fn call<const N: usize, F>(
+    py: Python<'_>,
+    inputs: [&In<'_>; N],
+    f: F,
+) -> PyResult<Py<PyAny>>
 where
     F: for<'a> FnOnce([ArrayViewD<'a, f64>; N]) -> crate::Result<ArrayD<f64>> + Send,
 {
@@ -135,7 +139,10 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     let py = m.py();
     m.add("__version__", env!("CARGO_PKG_VERSION"))?;
     m.add("StocktankError", py.get_type::<StocktankError>())?;
-    m.add("InvalidArgumentError", py.get_type::<InvalidArgumentError>())?;
+    m.add(
+        "InvalidArgumentError",
+        py.get_type::<InvalidArgumentError>(),
+    )?;
     m.add("ShapeError", py.get_type::<ShapeError>())?;
     m.add("InvalidOptionError", py.get_type::<InvalidOptionError>())?;
     m.add("InvalidRecordError", py.get_type::<InvalidRecordError>())?;

@@ -20,7 +20,9 @@ impl CoreyOilWater {
     #[new]
     #[pyo3(signature = (*, swc, sorw, krw_max = 1.0, kro_max = 1.0, nw = 2.0, no = 2.0))]
     fn new(swc: f64, sorw: f64, krw_max: f64, kro_max: f64, nw: f64, no: f64) -> PyResult<Self> {
-        Ok(Self(CoreOilWater::new(swc, sorw, krw_max, kro_max, nw, no)?))
+        Ok(Self(CoreOilWater::new(
+            swc, sorw, krw_max, kro_max, nw, no,
+        )?))
     }
     #[getter]
     fn swc(&self) -> f64 {
@@ -49,12 +51,16 @@ impl CoreyOilWater {
     /// Water relative permeability at water saturation ``sw`` (fraction).
     fn krw(&self, py: Python<'_>, sw: In<'_>) -> PyResult<Py<PyAny>> {
         let k = self.0;
-        call(py, [&sw], move |[s]| lift(["sw"], [s], OnError::Raise, |[s]| Ok(k.krw(s))))
+        call(py, [&sw], move |[s]| {
+            lift(["sw"], [s], OnError::Raise, |[s]| Ok(k.krw(s)))
+        })
     }
     /// Oil relative permeability at water saturation ``sw`` (fraction).
     fn krow(&self, py: Python<'_>, sw: In<'_>) -> PyResult<Py<PyAny>> {
         let k = self.0;
-        call(py, [&sw], move |[s]| lift(["sw"], [s], OnError::Raise, |[s]| Ok(k.krow(s))))
+        call(py, [&sw], move |[s]| {
+            lift(["sw"], [s], OnError::Raise, |[s]| Ok(k.krow(s)))
+        })
     }
     fn __repr__(&self) -> String {
         let k = &self.0;
@@ -63,7 +69,9 @@ impl CoreyOilWater {
             k.swc, k.sorw, k.krw_max, k.kro_max, k.nw, k.no
         )
     }
-    fn __reduce__<'py>(slf: &Bound<'py, Self>) -> PyResult<(Bound<'py, PyAny>, Bound<'py, PyTuple>, Bound<'py, PyAny>)> {
+    fn __reduce__<'py>(
+        slf: &Bound<'py, Self>,
+    ) -> PyResult<(Bound<'py, PyAny>, Bound<'py, PyTuple>, Bound<'py, PyAny>)> {
         let py = slf.py();
         let k = slf.get().0;
         let kwargs = pyo3::types::PyDict::new(py);
@@ -91,8 +99,18 @@ pub struct CoreyGasOil(pub CoreGasOil);
 impl CoreyGasOil {
     #[new]
     #[pyo3(signature = (*, swc, sgc, sorg, krg_max = 1.0, kro_max = 1.0, ng = 2.0, no = 2.0))]
-    fn new(swc: f64, sgc: f64, sorg: f64, krg_max: f64, kro_max: f64, ng: f64, no: f64) -> PyResult<Self> {
-        Ok(Self(CoreGasOil::new(swc, sgc, sorg, krg_max, kro_max, ng, no)?))
+    fn new(
+        swc: f64,
+        sgc: f64,
+        sorg: f64,
+        krg_max: f64,
+        kro_max: f64,
+        ng: f64,
+        no: f64,
+    ) -> PyResult<Self> {
+        Ok(Self(CoreGasOil::new(
+            swc, sgc, sorg, krg_max, kro_max, ng, no,
+        )?))
     }
     #[getter]
     fn swc(&self) -> f64 {
@@ -125,17 +143,23 @@ impl CoreyGasOil {
     /// Gas relative permeability at gas saturation ``sg`` (fraction).
     fn krg(&self, py: Python<'_>, sg: In<'_>) -> PyResult<Py<PyAny>> {
         let k = self.0;
-        call(py, [&sg], move |[s]| lift(["sg"], [s], OnError::Raise, |[s]| Ok(k.krg(s))))
+        call(py, [&sg], move |[s]| {
+            lift(["sg"], [s], OnError::Raise, |[s]| Ok(k.krg(s)))
+        })
     }
     /// Oil relative permeability at gas saturation ``sg`` (fraction).
     fn krog(&self, py: Python<'_>, sg: In<'_>) -> PyResult<Py<PyAny>> {
         let k = self.0;
-        call(py, [&sg], move |[s]| lift(["sg"], [s], OnError::Raise, |[s]| Ok(k.krog(s))))
+        call(py, [&sg], move |[s]| {
+            lift(["sg"], [s], OnError::Raise, |[s]| Ok(k.krog(s)))
+        })
     }
     /// The ratio krg/kro at gas saturation ``sg``; inf where oil is immobile.
     fn krg_over_kro(&self, py: Python<'_>, sg: In<'_>) -> PyResult<Py<PyAny>> {
         let k = self.0;
-        call(py, [&sg], move |[s]| lift(["sg"], [s], OnError::Raise, |[s]| Ok(k.krg_over_kro(s))))
+        call(py, [&sg], move |[s]| {
+            lift(["sg"], [s], OnError::Raise, |[s]| Ok(k.krg_over_kro(s)))
+        })
     }
     fn __repr__(&self) -> String {
         let k = &self.0;
@@ -144,7 +168,9 @@ impl CoreyGasOil {
             k.swc, k.sgc, k.sorg, k.krg_max, k.kro_max, k.ng, k.no
         )
     }
-    fn __reduce__<'py>(slf: &Bound<'py, Self>) -> PyResult<(Bound<'py, PyAny>, Bound<'py, PyTuple>, Bound<'py, PyAny>)> {
+    fn __reduce__<'py>(
+        slf: &Bound<'py, Self>,
+    ) -> PyResult<(Bound<'py, PyAny>, Bound<'py, PyTuple>, Bound<'py, PyAny>)> {
         let py = slf.py();
         let k = slf.get().0;
         let kwargs = pyo3::types::PyDict::new(py);
