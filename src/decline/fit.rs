@@ -20,8 +20,8 @@
 //!    the noise of monthly rates (roughly proportional to the rate) homogeneous.
 //! 4. The minimiser is a bounded Levenberg-Marquardt on the iteratively reweighted
 //!    Gauss-Newton model (weights `rho'(z_i)`), with an active set for parameters on a bound,
-//!    started from a log-linear regression and from a second start at a high `b`; the lower
-//!    cost wins. It stops when the relative decrease of the cost, the relative step or the
+//!    started from the best (lowest cost) of five two-point hyperbolas through the smoothed
+//!    ends of the history, one per `b` of an even grid over the bounds. It stops when the relative decrease of the cost, the relative step or the
 //!    projected gradient falls below [`FitOptions::tol`], and reports how it ended.
 //! 5. Standard errors come from the weighted Gauss-Newton Hessian at the optimum scaled by
 //!    the residual variance `2 cost / (n - p)` (asymptotic; approximate for robust losses);
@@ -403,14 +403,11 @@ impl WellFit {
 // ---------------------------------------------------------------------------------------
 // The model in the fitted parameters theta = (ln qi, ln di, b), time in years from t0.
 
-/// ln q and its gradient with respect to theta at `tau` years.
+/// ln(qi/q) = ln(1 + b x)/b and its derivative with respect to b, at `x = di tau`.
 #[inline(always)]
-fn model(theta: &[f64; 3], tau: f64) -> (f64, [f64; 3]) {
-    let di = theta[1].exp();
-    let b = theta[2];
-    let x = di * tau;
+fn log_ratio_db(b: f64, x: f64) -> (f64, f64) {
     let bx = b * x;
-    let (l, dl_db) = if bx.abs() < 1e-4 {
+    if bx.abs() < 1e-4 {
         // series of ln(1 + b x)/b and its b-derivative around b x = 0
         let x2 = x * x;
         (
@@ -420,18 +417,72 @@ fn model(theta: &[f64; 3], tau: f64) -> (f64, [f64; 3]) {
     } else {
         let lp = bx.ln_1p();
         (lp / b, (bx / (1.0 + bx) - lp) / (b * b))
-    };
-    let dl_du = x / (1.0 + bx);
-    (theta[0] - l, [1.0, -dl_du, -dl_db])
+    }
+}
+
+/// ln(qi/q) = ln(1 + b x)/b at `x = di tau` (value only).
+#[inline(always)]
+fn log_ratio(b: f64, x: f64) -> f64 {
+    let bx = b * x;
+    if bx.abs() < 1e-4 {
+        x - 0.5 * bx * x + bx * bx * x / 3.0
+    } else {
+        bx.ln_1p() / b
+    }
+}
+
+/// Inverse of [`log_ratio`] in x: `(exp(b l) - 1) / b`, `l` at `b = 0`.
+#[inline]
+fn x_from_log_ratio(b: f64, l: f64) -> f64 {
+    if b == 0.0 { l } else { (b * l).exp_m1() / b }
+}
+
+/// ln q and its gradient with respect to theta = (ln qi, ln di, b) at `tau` years.
+#[cfg(test)]
+#[inline(always)]
+fn model(theta: &[f64; 3], tau: f64) -> (f64, [f64; 3]) {
+    let di = theta[1].exp();
+    let b = theta[2];
+    let x = di * tau;
+    let (l, dl_db) = log_ratio_db(b, x);
+    (theta[0] - l, [1.0, -x / (1.0 + b * x), -dl_db])
+}
+
+/// ln q at `tau` years.
+#[inline(always)]
+fn model_value(theta: &[f64; 3], tau: f64) -> f64 {
+    theta[0] - log_ratio(theta[2], theta[1].exp() * tau)
+}
+
+/// Cost of theta on every `stride`-th point of (tau, y) (a cheap screen of starts).
+#[inline]
+fn cost_strided(
+    theta: &[f64; 3],
+    tau: &[f64],
+    y: &[f64],
+    loss: Loss,
+    c: f64,
+    stride: usize,
+) -> f64 {
+    let inv_c2 = 1.0 / (c * c);
+    let (a, di, b) = (theta[0], theta[1].exp(), theta[2]);
+    let mut s = 0.0;
+    for (&t, &yy) in tau.iter().zip(y).step_by(stride) {
+        let r = yy - a + log_ratio(b, di * t);
+        s += loss.rho(r * r * inv_c2).0;
+    }
+    0.5 * c * c * s
 }
 
 /// Cost of theta on data (tau, y).
+#[cfg(test)]
 #[inline]
 fn cost(theta: &[f64; 3], tau: &[f64], y: &[f64], loss: Loss, c: f64) -> f64 {
     let inv_c2 = 1.0 / (c * c);
+    let (a, di, b) = (theta[0], theta[1].exp(), theta[2]);
     let mut s = 0.0;
     for (&t, &yy) in tau.iter().zip(y) {
-        let r = yy - model(theta, t).0;
+        let r = yy - a + log_ratio(b, di * t);
         s += loss.rho(r * r * inv_c2).0;
     }
     0.5 * c * c * s
@@ -524,21 +575,19 @@ fn minimise(
     for k in 0..3 {
         theta[k] = theta[k].clamp(bounds.lo[k], bounds.hi[k]);
     }
-    let mut f = cost(&theta, tau, y, loss, c);
-    let mut lambda = 1e-3;
-    let mut converged = false;
-    let mut iterations = 0;
-    let mut h = [[0.0; 3]; 3];
-    let mut active = [false; 3];
-    while iterations < max_iter {
-        iterations += 1;
-        // gradient and weighted Gauss-Newton Hessian of the cost (r = y - m, dr = -dm)
+    // cost, gradient and weighted Gauss-Newton Hessian in one pass (r = y - m, dr = -dm)
+    let eval = |theta: &[f64; 3]| -> (f64, [f64; 3], [[f64; 3]; 3]) {
+        let mut s = 0.0;
         let mut g = [0.0; 3];
-        h = [[0.0; 3]; 3];
+        let mut h = [[0.0; 3]; 3];
+        let (a0, di, b) = (theta[0], theta[1].exp(), theta[2]);
         for (&t, &yy) in tau.iter().zip(y) {
-            let (m, dm) = model(&theta, t);
-            let r = yy - m;
-            let w = loss.rho(r * r * inv_c2).1;
+            let x = di * t;
+            let (l, dl_db) = log_ratio_db(b, x);
+            let dm = [1.0, -x / (1.0 + b * x), -dl_db];
+            let r = yy - a0 + l;
+            let (rho, w) = loss.rho(r * r * inv_c2);
+            s += rho;
             for i in 0..3 {
                 g[i] -= w * r * dm[i];
                 for j in 0..=i {
@@ -551,6 +600,14 @@ fn minimise(
                 h[j][i] = h[i][j];
             }
         }
+        (0.5 * c * c * s, g, h)
+    };
+    let (mut f, mut g, mut h) = eval(&theta);
+    let mut lambda = 1e-3;
+    let mut converged = false;
+    let mut iterations = 0;
+    let mut active;
+    loop {
         // active set: on a bound with the descent direction pointing outward
         let on_lo = |k: usize| theta[k] <= bounds.lo[k] && g[k] > 0.0;
         let on_hi = |k: usize| theta[k] >= bounds.hi[k] && g[k] < 0.0;
@@ -564,6 +621,10 @@ fn minimise(
             converged = true;
             break;
         }
+        if converged || iterations >= max_iter {
+            break;
+        }
+        iterations += 1;
         let mut accepted = false;
         for _ in 0..30 {
             let mut a = h;
@@ -581,14 +642,14 @@ fn minimise(
                     trial[k] = (theta[k] + step[k]).clamp(bounds.lo[k], bounds.hi[k]);
                 }
             }
-            let f_new = cost(&trial, tau, y, loss, c);
+            let (f_new, g_new, h_new) = eval(&trial);
             if f_new.is_finite() && f_new < f {
                 let step_norm = (0..3)
                     .map(|k| (trial[k] - theta[k]).abs() / (1.0 + theta[k].abs()))
                     .fold(0.0, f64::max);
                 let df = f - f_new;
                 theta = trial;
-                f = f_new;
+                (f, g, h) = (f_new, g_new, h_new);
                 lambda = (lambda / 3.0).max(1e-12);
                 accepted = true;
                 if df <= opts.tol * f.max(1e-300) || step_norm <= opts.tol {
@@ -602,11 +663,8 @@ fn minimise(
             }
         }
         if !accepted {
-            // no decrease is possible along any damped step: a (local) minimum to precision
+            // no damped step lowers the cost: a (local) minimum to working precision
             converged = true;
-            break;
-        }
-        if converged {
             break;
         }
     }
@@ -824,38 +882,34 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
         );
     }
 
-    // 3-4. minimise from two starts
+    // 3-4. start: the best of a few two-point hyperbolas through the smoothed ends of the
+    // history (one per b of a grid over the bounds), then the minimiser from there
     let bounds = Bounds {
         lo: [f64::NEG_INFINITY, opts.di_bounds.0.ln(), opts.b_bounds.0],
         hi: [f64::INFINITY, opts.di_bounds.1.ln(), opts.b_bounds.1],
     };
-    let n_head = (n_used / 3).max(3);
-    let a0 = y[..3].iter().sum::<f64>() / 3.0;
-    let di0 = (-slope).max(1e-3);
-    let starts = [
-        [
-            a0,
-            di0.ln(),
-            0.5 * (opts.b_bounds.0 + opts.b_bounds.1).min(1.0),
-        ],
-        [
-            y[0].max(a0),
-            // a hyperbola with a high b needs a steeper initial decline
-            ((y[0] - y[n_head - 1]) / tau[n_head - 1].max(1e-9))
-                .max(di0)
-                .ln()
-                + 0.7,
-            opts.b_bounds.1.min(1.5).max(opts.b_bounds.0),
-        ],
-    ];
-    let mut best: Option<Solution> = None;
-    for s in starts {
-        let sol = minimise(s, &tau, &y, &bounds, opts, opts.max_iter);
-        if best.as_ref().is_none_or(|b| sol.cost < b.cost) {
-            best = Some(sol);
+    let k3 = 3.min(n_used / 2);
+    let a0 = y[..k3].iter().sum::<f64>() / k3 as f64;
+    let y_end = y[n_used - k3..].iter().sum::<f64>() / k3 as f64;
+    let tau_end = tau[n_used - k3..].iter().sum::<f64>() / k3 as f64
+        - tau[..k3].iter().sum::<f64>() / k3 as f64;
+    let drop = (a0 - y_end).max(1e-3);
+    let mut theta0 = [a0, (-slope).max(opts.di_bounds.0).ln(), opts.b_bounds.0];
+    let mut best_cost = f64::INFINITY;
+    const GRID: usize = 5;
+    let stride = n_used.div_ceil(40);
+    for g in 0..GRID {
+        let b =
+            opts.b_bounds.0 + (opts.b_bounds.1 - opts.b_bounds.0) * g as f64 / (GRID - 1) as f64;
+        let di = x_from_log_ratio(b, drop) / tau_end.max(1e-9);
+        let cand = [a0, di.clamp(opts.di_bounds.0, opts.di_bounds.1).ln(), b];
+        let c = cost_strided(&cand, &tau, &y, opts.loss, opts.f_scale, stride);
+        if c < best_cost {
+            best_cost = c;
+            theta0 = cand;
         }
     }
-    let sol = best.expect("two starts");
+    let sol = minimise(theta0, &tau, &y, &bounds, opts, opts.max_iter);
     if !sol.theta.iter().all(|v| v.is_finite()) || !sol.cost.is_finite() {
         return WellFit::failed(FitStatus::Failed, "no finite optimum".to_string());
     }
@@ -868,7 +922,7 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
     let mut resid = Vec::with_capacity(n_used);
     let mut fitted = Vec::with_capacity(n_used);
     for (&tt, &yy) in tau.iter().zip(&y) {
-        let m = model(&theta, tt).0;
+        let m = model_value(&theta, tt);
         resid.push(yy - m);
         fitted.push(m);
         ss_res += (yy - m) * (yy - m);
