@@ -141,14 +141,26 @@ def _invalid_option(arg: str, value: Any, allowed: str) -> Exception:
     return InvalidOptionError(f"invalid `{arg}` = {value!r}; expected one of: {allowed}")
 
 
-def _group(well: Any, t_days: np.ndarray) -> Tuple[np.ndarray, np.ndarray, np.ndarray]:
-    """Sorted unique wells, the record order (by well, then time) and the offsets."""
+def _group(well: Any, t_days: np.ndarray) -> Tuple[np.ndarray, Optional[np.ndarray], np.ndarray]:
+    """Sorted unique wells, the record order grouping them (None if already grouped in key
+    order) and the offsets. Times within a well may stay in any order (the core sorts)."""
     keys = np.asarray(well)
     if keys.ndim != 1:
-        raise ValueError(f"`well` must be one-dimensional, got shape {keys.shape}")
+        from ._core import ShapeError
+
+        raise ShapeError(f"`well` must be one-dimensional, got shape {keys.shape}")
+    n = len(keys)
+    try:
+        grouped = n == 0 or bool(np.all(keys[1:] >= keys[:-1]))
+    except TypeError:
+        grouped = False
+    if grouped:
+        starts = np.flatnonzero(keys[1:] != keys[:-1]) + 1 if n else np.zeros(0, np.int64)
+        offsets = np.concatenate([[0], starts, [n]]).astype(np.int64) if n else np.zeros(1, np.int64)
+        return keys[offsets[:-1]], None, offsets
     uniques, codes = np.unique(keys, return_inverse=True)
     codes = codes.reshape(-1)
-    order = np.lexsort((t_days, codes))
+    order = np.argsort(codes, kind="stable")
     counts = np.bincount(codes, minlength=len(uniques))
     offsets = np.zeros(len(uniques) + 1, dtype=np.int64)
     np.cumsum(counts, out=offsets[1:])
@@ -220,7 +232,9 @@ def fit_wells(
         )
     uniques, order, offsets = _group(well, t_days)
     st = _start_times(start_time, uniques, time_unit)
-    res = fit_decline_batch(t_days[order], q[order], offsets, st, **options)
+    if order is not None:
+        t_days, q = t_days[order], q[order]
+    res = fit_decline_batch(t_days, q, offsets, st, **options)
     out: Dict[str, np.ndarray] = {"well": uniques}
     for name in FIT_COLUMNS:
         col = res[name]

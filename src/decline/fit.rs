@@ -1155,6 +1155,26 @@ mod tests {
     }
 
     #[test]
+    fn reported_cost_is_the_cost_of_the_reported_theta() {
+        let tau: Vec<f64> = (0..40).map(|m| m as f64 / 12.0).collect();
+        let y: Vec<f64> = tau
+            .iter()
+            .enumerate()
+            .map(|(i, &t)| 6.0 - (0.8 * t * 1.5f64).ln_1p() / 0.8 + 0.05 * ((i % 5) as f64 - 2.0))
+            .collect();
+        let opts = FitOptions::default();
+        let bounds = Bounds {
+            lo: [f64::NEG_INFINITY, opts.di_bounds.0.ln(), 0.0],
+            hi: [f64::INFINITY, opts.di_bounds.1.ln(), 2.0],
+        };
+        let s = minimise([5.0, 0.0, 0.5], &tau, &y, &bounds, &opts, 200);
+        assert!(s.converged);
+        let c = cost(&s.theta, &tau, &y, opts.loss, opts.f_scale);
+        assert!((c - s.cost).abs() <= 1e-14 * c.max(1.0));
+        assert!((s.theta[1] - 1.5f64.ln()).abs() < 0.1 && (s.theta[2] - 0.8).abs() < 0.2);
+    }
+
+    #[test]
     fn percentile_like_numpy() {
         // numpy.percentile([1, 2, 3, 4], [10, 50, 90]) = [1.3, 2.5, 3.7]
         let v = [1.0, 2.0, 3.0, 4.0];
