@@ -72,6 +72,7 @@ FIT_COLUMNS: Tuple[str, ...] = (
     "di_at_bound",
     "t0",
     "t_last",
+    "t_forecast",
     "t_end",
     "n_used",
     "n_excluded",
@@ -86,9 +87,11 @@ FIT_COLUMNS: Tuple[str, ...] = (
     "eur_p50",
     "eur_p10",
 )
-"""Per-well result columns, in order (``t0``, ``t_last``, ``t_end`` in the input's time axis)."""
+"""Per-well result columns, in order (``t0``, ``t_last``, ``t_forecast``, ``t_end`` in the
+input's time axis; the forecast starts at ``t_forecast``, the end of the last producing record's
+period, where ``cum_produced`` stops)."""
 
-_TIME_COLUMNS = ("t0", "t_last", "t_end")
+_TIME_COLUMNS = ("t0", "t_last", "t_forecast", "t_end")
 _EPOCH = np.datetime64("1970-01-01T00:00:00", "ns")
 _UNITS = {"day": 1.0, "month": DAYS_PER_MONTH, "year": DAYS_PER_YEAR}
 _FIT_OPTIONS = (
@@ -279,12 +282,12 @@ def forecast_wells(
     step_days: float = DAYS_PER_MONTH,
     time_unit: str = "day",
 ) -> Dict[str, np.ndarray]:
-    """Monthly forecast tables (long format) of fitted wells from their last producing record.
+    """Monthly forecast tables (long format) of fitted wells from ``t_forecast``.
 
     Args:
         fits: the result of :func:`fit_wells` (a dict) or the per-phase columns of
             :func:`fit_production` renamed to the plain names (``qi``, ``di``, ``b``, ``t0``,
-            ``t_last``, ``well``).
+            ``t_forecast``, ``well``).
         q_limit: economic-limit rate, per day; d_min: terminal nominal decline per year;
         horizon_years: longest forecast after the last record, years (use the fit's values).
         step_days: step length, days (default one average month, 30.4375 d).
@@ -292,12 +295,12 @@ def forecast_wells(
 
     Returns:
         Dict of arrays: ``well``, ``time`` (start of each step, input axis), ``rate`` (mean
-        rate over the step, per day), ``volume`` (rate x days) and ``cumulative`` (from the
-        last record). The volumes of a well add up to its ``remaining``.
+        rate over the step, per day), ``volume`` (rate x days) and ``cumulative`` (from
+        ``t_forecast``). The volumes of a well add up to its ``remaining``.
     """
     dates = bool(np.asarray(fits.get("_dates", False)))
     t0 = np.asarray(fits["t0"])
-    t_last = np.asarray(fits["t_last"])
+    t_last = np.asarray(fits["t_forecast"])
     if np.issubdtype(t0.dtype, np.datetime64):
         dates = True
     t0d = _days(t0, time_unit)[0]

@@ -28,8 +28,9 @@
 //!    a parameter on a bound has no standard error (NaN).
 //! 6. Volumes: `cum_produced` is the measured volume, each record's rate times the time to
 //!    the next record (the last record uses the previous spacing; missing months count 0).
-//!    `remaining` is the Arps volume (with the terminal decline `d_min`) from the last
-//!    producing record to the economic limit `q_limit` or the horizon, and
+//!    `remaining` is the Arps volume (with the terminal decline `d_min`) from the end of the
+//!    last producing record's period (`t_forecast`, where the measured volume stops) to the
+//!    economic limit `q_limit` or the horizon (counted from `t_forecast`), and
 //!    `eur = cum_produced + remaining`.
 //! 7. EUR range by residual bootstrap (Efron and Tibshirani 1993, ch. 9): the log residuals
 //!    of the fit are resampled with replacement onto the fitted curve, each synthetic history
@@ -336,7 +337,10 @@ pub struct WellFit {
     pub iterations: usize,
     /// Measured volume of all records, rate x days.
     pub cum_produced: f64,
-    /// Forecast volume from `t_last` to the economic limit or horizon, rate x days.
+    /// Start of the forecast, days (caller's axis): the end of the last producing record's
+    /// period (its time plus the spacing to the next record), where `cum_produced` stops.
+    pub t_forecast: f64,
+    /// Forecast volume from `t_forecast` to the economic limit or horizon, rate x days.
     pub remaining: f64,
     /// `cum_produced + remaining`.
     pub eur: f64,
@@ -366,6 +370,7 @@ impl WellFit {
             di_at_bound: false,
             t0: n,
             t_last: n,
+            t_forecast: n,
             n_used: 0,
             n_excluded: 0,
             cost: n,
@@ -805,6 +810,7 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
     // measured volume: rate x time to the next record (last: previous spacing)
     let n = order.len();
     let mut cum_produced = 0.0;
+    let mut t_forecast = f64::NAN;
     for k in 0..n {
         let i = order[k];
         let dt = if k + 1 < n {
@@ -816,6 +822,7 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
         };
         if q[i] > 0.0 {
             cum_produced += q[i] * dt;
+            t_forecast = t[i] + dt;
         }
     }
     let producing: Vec<usize> = order.iter().copied().filter(|&i| q[i] > 0.0).collect();
@@ -945,7 +952,7 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
     let volumes = |qi: f64, di: f64, b: f64| -> (f64, f64) {
         match Arps::new(qi, di, b, opts.d_min) {
             Ok(a) => {
-                let from = t_last - t0;
+                let from = t_forecast - t0;
                 let t_end = a
                     .time_to_rate(opts.q_limit)
                     .unwrap_or(f64::NAN)
@@ -1005,6 +1012,7 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
         di_at_bound: at_bound[1],
         t0,
         t_last,
+        t_forecast,
         n_used,
         n_excluded: n - n_used,
         cost: sol.cost,

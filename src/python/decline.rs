@@ -234,6 +234,7 @@ fn fit_decline_batch<'py>(
     col!("di_at_bound", |f| f.di_at_bound);
     col!("t0", |f| f.t0);
     col!("t_last", |f| f.t_last);
+    col!("t_forecast", |f| f.t_forecast);
     col!("t_end", |f| f.t_end);
     col!("n_used", |f| f.n_used as i64);
     col!("n_excluded", |f| f.n_excluded as i64);
