@@ -253,7 +253,7 @@ fn fit_decline_batch<'py>(
 
 /// Forecast tables of many declines in long format; returns a dict of arrays.
 #[pyfunction]
-#[pyo3(signature = (qi, di, b, t_from, t_max, *, d_min = 0.0, q_limit = 1.0, step_days = core::MONTH_STEP_DAYS))]
+#[pyo3(signature = (qi, di, b, t_from, t_max, *, d_min = 0.0, q_limit = 1.0, step_days = None))]
 #[allow(clippy::too_many_arguments)]
 fn forecast_batch<'py>(
     py: Python<'py>,
@@ -264,8 +264,9 @@ fn forecast_batch<'py>(
     t_max: In<'py>,
     d_min: f64,
     q_limit: f64,
-    step_days: f64,
+    step_days: Option<f64>,
 ) -> PyResult<Bound<'py, PyDict>> {
+    let step_days = step_days.unwrap_or(core::MONTH_STEP_DAYS);
     let (qi, di, b) = (to_vec(&qi, "qi")?, to_vec(&di, "di")?, to_vec(&b, "b")?);
     let (tf, tm) = (to_vec(&t_from, "t_from")?, to_vec(&t_max, "t_max")?);
     let (idx, rows) =
