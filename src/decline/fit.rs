@@ -408,20 +408,25 @@ impl WellFit {
 // ---------------------------------------------------------------------------------------
 // The model in the fitted parameters theta = (ln qi, ln di, b), time in years from t0.
 
+/// Below this `b x` the fit's model uses a series (relative error below 1e-12); above it,
+/// `ln(1 + b x)` (faster than `ln_1p` and, from 1e-3 on, accurate to about 1e-13).
+const SERIES_BX: f64 = 1e-3;
+
 /// ln(qi/q) = ln(1 + b x)/b and its derivative with respect to b, at `x = di tau`.
 #[inline(always)]
 fn log_ratio_db(b: f64, x: f64) -> (f64, f64) {
     let bx = b * x;
-    if bx.abs() < 1e-4 {
+    if bx.abs() < SERIES_BX {
         // series of ln(1 + b x)/b and its b-derivative around b x = 0
         let x2 = x * x;
+        let (b2, x3) = (b * b, x2 * x);
         (
-            x - 0.5 * b * x2 + b * b * x2 * x / 3.0,
-            -0.5 * x2 + 2.0 / 3.0 * b * x2 * x - 0.75 * b * b * x2 * x2,
+            x - 0.5 * b * x2 + b2 * x3 / 3.0 - 0.25 * b2 * b * x3 * x,
+            -0.5 * x2 + 2.0 / 3.0 * b * x3 - 0.75 * b2 * x3 * x + 0.8 * b2 * b * x3 * x2,
         )
     } else {
-        let lp = bx.ln_1p();
-        (lp / b, (bx / (1.0 + bx) - lp) / (b * b))
+        let lp = (1.0 + bx).ln() / b;
+        (lp, (x / (1.0 + bx) - lp) / b)
     }
 }
 
@@ -429,10 +434,10 @@ fn log_ratio_db(b: f64, x: f64) -> (f64, f64) {
 #[inline(always)]
 fn log_ratio(b: f64, x: f64) -> f64 {
     let bx = b * x;
-    if bx.abs() < 1e-4 {
-        x - 0.5 * bx * x + bx * bx * x / 3.0
+    if bx.abs() < SERIES_BX {
+        x * (1.0 - 0.5 * bx + bx * bx / 3.0 - 0.25 * bx * bx * bx)
     } else {
-        bx.ln_1p() / b
+        (1.0 + bx).ln() / b
     }
 }
 
@@ -586,10 +591,19 @@ fn minimise(
         let mut g = [0.0; 3];
         let mut h = [[0.0; 3]; 3];
         let (a0, di, b) = (theta[0], theta[1].exp(), theta[2]);
+        let inv_b = 1.0 / b;
         for (&t, &yy) in tau.iter().zip(y) {
             let x = di * t;
-            let (l, dl_db) = log_ratio_db(b, x);
-            let dm = [1.0, -x / (1.0 + b * x), -dl_db];
+            let bx = b * x;
+            let inv_1pbx = 1.0 / (1.0 + bx);
+            let (l, dl_db) = if bx.abs() < SERIES_BX {
+                log_ratio_db(b, x)
+            } else {
+                // ln(1 + b x)/b and (b x/(1 + b x) - ln(1 + b x))/b^2, one division
+                let lp = (1.0 + bx).ln() * inv_b;
+                (lp, (x * inv_1pbx - lp) * inv_b)
+            };
+            let dm = [1.0, -x * inv_1pbx, -dl_db];
             let r = yy - a0 + l;
             let (rho, w) = loss.rho(r * r * inv_c2);
             s += rho;
