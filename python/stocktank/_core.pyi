@@ -142,7 +142,7 @@ def fit_decline_batch(
     n_bootstrap: int = 100,
     seed: int = 0,
     max_iter: int = 200,
-    tol: float = 1e-10,
+    tol: float = 1e-8,
 ) -> Dict[str, Any]: ...
 def forecast_batch(
     qi: ArrayLike,

@@ -173,7 +173,8 @@ pub struct FitOptions {
     pub seed: u64,
     /// Iteration limit of the minimiser (default 200).
     pub max_iter: usize,
-    /// Relative tolerance on cost decrease, step and projected gradient (default 1e-10).
+    /// Relative tolerance on cost decrease, step and projected gradient (default 1e-8, as the `ftol` default of
+    /// scipy.optimize.least_squares).
     pub tol: f64,
 }
 
@@ -192,7 +193,7 @@ impl Default for FitOptions {
             n_bootstrap: 100,
             seed: 0,
             max_iter: 200,
-            tol: 1e-10,
+            tol: 1e-8,
         }
     }
 }

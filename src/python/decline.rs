@@ -150,7 +150,7 @@ fn to_vec(a: &In<'_>, name: &str) -> PyResult<Vec<f64>> {
 #[pyo3(signature = (
     t, q, offsets, start_time = None, *, loss = "soft_l1", f_scale = 0.2, b_min = 0.0,
     b_max = 2.0, di_min = 1e-3, di_max = 50.0, start = "peak", min_points = 6, q_limit = 1.0,
-    d_min = 0.0, horizon_years = 50.0, n_bootstrap = 100, seed = 0, max_iter = 200, tol = 1e-10
+    d_min = 0.0, horizon_years = 50.0, n_bootstrap = 100, seed = 0, max_iter = 200, tol = 1e-8
 ))]
 #[allow(clippy::too_many_arguments)]
 fn fit_decline_batch<'py>(

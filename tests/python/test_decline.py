@@ -140,7 +140,7 @@ def test_fit_matches_scipy_least_squares(loss):
     # Reference: scipy.optimize.least_squares on the same objective (log-rate residuals, same
     # robust loss and f_scale, same bounds on ln di and b) and the same data.
     well, t, q, _ = synthetic(25, seed=11, outliers=0.05)
-    res = st.fit_wells(well, t, q, loss=loss, n_bootstrap=0, start="first")
+    res = st.fit_wells(well, t, q, loss=loss, n_bootstrap=0, start="first", tol=1e-12)
     lo = [-np.inf, np.log(1e-3), 0.0]
     hi = [np.inf, np.log(50.0), 2.0]
     worse = 0
