@@ -51,6 +51,9 @@
 //!   squares, the soft-L1 form), LNCS 1883, 298-372.
 //! - Efron, B. and Tibshirani, R.J. (1993). An Introduction to the Bootstrap. Chapman & Hall.
 
+// Index loops over the 3 parameters read like the formulas they implement.
+#![allow(clippy::needless_range_loop)]
+
 use super::arps::Arps;
 use crate::error::{Error, Result};
 use crate::units::{DAYS_PER_MONTH, DAYS_PER_YEAR};
@@ -233,7 +236,7 @@ impl FitOptions {
         }
         crate::error::non_negative("q_limit", self.q_limit)?;
         crate::error::non_negative("d_min", self.d_min)?;
-        if !(self.horizon_years > 0.0) {
+        if self.horizon_years.is_nan() || self.horizon_years <= 0.0 {
             return Err(Error::invalid(
                 "horizon_years",
                 self.horizon_years,
@@ -528,7 +531,7 @@ fn solve_free(a: &[[f64; 3]; 3], g: &[f64; 3], free: &[bool; 3]) -> Option<[f64;
     // Gaussian elimination with partial pivoting on an n x n system (n <= 3).
     for col in 0..n {
         let p = (col..n).max_by(|&x, &y| m[x][col].abs().total_cmp(&m[y][col].abs()))?;
-        if !(m[p][col].abs() > 1e-300) {
+        if m[p][col].is_nan() || m[p][col].abs() <= 1e-300 {
             return None;
         }
         m.swap(col, p);
@@ -897,7 +900,7 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
         stt += (a - mt) * (a - mt);
     }
     let slope = sty / stt;
-    if !(slope < 0.0) {
+    if slope.is_nan() || slope >= 0.0 {
         return WellFit::failed(
             FitStatus::NotDeclining,
             format!("log rate does not fall from the start (trend {slope:+.4} per year)"),
