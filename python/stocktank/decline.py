@@ -49,8 +49,6 @@ __all__: List[str] = [
     "forecast_wells",
     "fit_production",
     "fit_production_dask",
-    "DAYS_PER_YEAR",
-    "DAYS_PER_MONTH",
     "FIT_COLUMNS",
 ]
 
@@ -216,7 +214,8 @@ def fit_wells(
 
     Returns:
         A dict of arrays, one element per well sorted by key: ``well`` and every name of
-        :data:`FIT_COLUMNS`; ``t0``, ``t_last``, ``t_end`` in the input's time axis.
+        :data:`FIT_COLUMNS`; ``t0``, ``t_last``, ``t_forecast``, ``t_end`` in the input's
+        time axis (``datetime64[ns]`` for date input).
         Volumes in rate x days (STB, Mscf); ``di`` nominal per year.
 
     Raises:
@@ -247,7 +246,6 @@ def fit_wells(
             out[name] = _from_days(col, dates, time_unit)
         else:
             out[name] = col
-    out["_dates"] = np.asarray(dates)
     return out
 
 
@@ -270,7 +268,7 @@ def fit_decline(
     well = np.zeros(q.shape, dtype=np.int64)
     st = None if start_time is None else {0: start_time}
     res = fit_wells(well, time, q, time_unit=time_unit, start_time=st, **options)
-    return {k: (v[0] if k != "_dates" else v) for k, v in res.items() if k not in ("well", "_dates")}
+    return {k: v[0] for k, v in res.items() if k != "well"}
 
 
 def forecast_wells(
@@ -298,11 +296,9 @@ def forecast_wells(
         rate over the step, per day), ``volume`` (rate x days) and ``cumulative`` (from
         ``t_forecast``). The volumes of a well add up to its ``remaining``.
     """
-    dates = bool(np.asarray(fits.get("_dates", False)))
     t0 = np.asarray(fits["t0"])
     t_last = np.asarray(fits["t_forecast"])
-    if np.issubdtype(t0.dtype, np.datetime64):
-        dates = True
+    dates = bool(np.issubdtype(t0.dtype, np.datetime64))
     t0d = _days(t0, time_unit)[0]
     tld = _days(t_last, time_unit)[0]
     t_from = tld - t0d

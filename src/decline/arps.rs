@@ -95,7 +95,8 @@ impl Arps {
     /// - `di`: initial nominal decline, per year (> 0).
     /// - `b`: Arps exponent (>= 0; values above 1 occur in transient flow and need
     ///   `d_min > 0` for a finite ultimate cumulative).
-    /// - `d_min`: terminal nominal decline, per year (>= 0; 0 means none).
+    /// - `d_min`: terminal nominal decline, per year (>= 0; 0 means none). A terminal
+    ///   decline quoted as effective per year `De` is `nominal_decline(De, 0.0, Period::Year)`.
     ///
     /// # Errors
     /// [`Error::InvalidArgument`] naming `qi`, `di`, `b` or `d_min`.

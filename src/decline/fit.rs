@@ -809,13 +809,16 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
         if !t[i].is_finite() {
             return WellFit::failed(
                 FitStatus::InvalidData,
-                format!("time {} at record {i} is not finite", t[i]),
+                format!("time {} at the well's record {i} is not finite", t[i]),
             );
         }
         if q[i] < 0.0 {
             return WellFit::failed(
                 FitStatus::InvalidData,
-                format!("negative rate {} at record {i} (time {})", q[i], t[i]),
+                format!(
+                    "negative rate {} at the well's record {i} (time {})",
+                    q[i], t[i]
+                ),
             );
         }
         if k > 0 && t[order[k - 1]] == t[i] {

@@ -6,7 +6,20 @@ use numpy::{AllowTypeChange, IntoPyArray, PyArrayLike1};
 use pyo3::prelude::*;
 use pyo3::types::PyDict;
 
-/// Arps rate (per day) at ``t`` days; ``di``, ``d_min`` nominal per year.
+/// Arps (1945) rate at time ``t``, with an optional terminal exponential decline.
+///
+/// Args:
+///     qi: initial rate, per day (STB/d or Mscf/d), > 0.
+///     di: initial nominal decline, per year, > 0.
+///     b: Arps exponent, >= 0 (0 exponential, 1 harmonic).
+///     t: time since the start of the decline, days, >= 0.
+///     d_min: terminal nominal decline, per year (default none); the rate turns
+///         exponential once the hyperbolic decline falls to it. A terminal decline quoted
+///         as effective per year converts with ``nominal_decline(de, 0.0)``.
+///     errors: "raise" (default) or "coerce" (NaN for invalid elements).
+///
+/// Returns:
+///     Rate, per day (float for scalar inputs, else a broadcast ndarray). NaN in, NaN out.
 #[pyfunction]
 #[pyo3(signature = (qi, di, b, t, *, d_min = None, errors = "raise"))]
 fn arps_rate(
@@ -25,7 +38,12 @@ fn arps_rate(
     })
 }
 
-/// Arps cumulative (rate x days) from 0 to ``t`` days.
+/// Arps (1945) cumulative production from 0 to ``t`` days.
+///
+/// Args: as :func:`arps_rate` (``t`` may be ``inf`` for the ultimate cumulative).
+///
+/// Returns:
+///     Volume in rate x days (STB for STB/d, Mscf for Mscf/d).
 #[pyfunction]
 #[pyo3(signature = (qi, di, b, t, *, d_min = None, errors = "raise"))]
 fn arps_cumulative(
@@ -44,7 +62,12 @@ fn arps_cumulative(
     })
 }
 
-/// Days for an Arps decline to reach ``q_limit`` (per day).
+/// Time for an Arps decline to fall to the rate ``q_limit``.
+///
+/// Args: as :func:`arps_rate`, with ``q_limit`` (per day, >= 0) in place of ``t``.
+///
+/// Returns:
+///     Days since the start of the decline (0 when ``q_limit >= qi``, inf when 0).
 #[pyfunction]
 #[pyo3(signature = (qi, di, b, q_limit, *, d_min = None, errors = "raise"))]
 fn arps_time_to_rate(
@@ -65,7 +88,13 @@ fn arps_time_to_rate(
     )
 }
 
-/// Arps EUR (rate x days) from 0 to ``q_limit`` or ``t_max`` days.
+/// Arps EUR: cumulative from 0 to the economic-limit rate or the horizon.
+///
+/// Args: as :func:`arps_rate`, with ``q_limit`` (per day, >= 0) and ``t_max`` (days since
+/// the start of the decline, default inf).
+///
+/// Returns:
+///     Volume in rate x days (STB, Mscf). A screening estimate.
 #[pyfunction]
 #[pyo3(signature = (qi, di, b, q_limit, *, d_min = None, t_max = None, errors = "raise"))]
 #[allow(clippy::too_many_arguments)]
@@ -92,7 +121,17 @@ fn arps_eur(
     )
 }
 
-/// Effective decline over a period from a nominal decline per year.
+/// Effective (secant) decline over one period from a nominal decline per year.
+///
+/// ``1 - (1 + b D dt)^(-1/b)`` (``1 - exp(-D dt)`` at b = 0), dt = 1 year or 1/12.
+///
+/// Args:
+///     d_nominal_per_year: nominal decline, per year, >= 0.
+///     b: Arps exponent, >= 0.
+///     period: "year" (default) or "month".
+///
+/// Returns:
+///     Fraction in [0, 1).
 #[pyfunction]
 #[pyo3(signature = (d_nominal_per_year, b, *, period = "year", errors = "raise"))]
 fn effective_decline(
@@ -109,7 +148,17 @@ fn effective_decline(
     })
 }
 
-/// Nominal decline per year from an effective decline over a period.
+/// Nominal decline per year from an effective (secant) decline over one period.
+///
+/// ``((1 - De)^(-b) - 1) / (b dt)`` (``-ln(1 - De) / dt`` at b = 0).
+///
+/// Args:
+///     d_effective: effective decline over the period, fraction in [0, 1).
+///     b: Arps exponent, >= 0.
+///     period: "year" (default) or "month".
+///
+/// Returns:
+///     Nominal decline, per year.
 #[pyfunction]
 #[pyo3(signature = (d_effective, b, *, period = "year", errors = "raise"))]
 fn nominal_decline(
@@ -145,7 +194,18 @@ fn to_vec(a: &In<'_>, name: &str) -> PyResult<Vec<f64>> {
     Ok(v.iter().copied().collect())
 }
 
-/// Fit many wells (long format grouped by ``offsets``); returns a dict of arrays.
+/// Fit an Arps decline to many wells in parallel (GIL released); the core of ``fit_wells``.
+///
+/// Args:
+///     t: record times, days on a fixed origin; q: rates per day (NaN missing, 0 shut in).
+///     offsets: int array, well k is ``t[offsets[k]:offsets[k+1]]``.
+///     start_time: optional per-well decline start, days (NaN = none).
+///     loss, f_scale, b_min, b_max, di_min, di_max (nominal per year), start, min_points,
+///     q_limit (per day), d_min (nominal per year), horizon_years, n_bootstrap, seed,
+///     max_iter, tol: see ``stocktank.decline.fit_wells``.
+///
+/// Returns:
+///     Dict of per-well arrays (``status`` and ``message`` as lists of str).
 #[pyfunction]
 #[pyo3(signature = (
     t, q, offsets, start_time = None, *, loss = "soft_l1", f_scale = 0.2, b_min = 0.0,
@@ -251,7 +311,18 @@ fn fit_decline_batch<'py>(
     Ok(out)
 }
 
-/// Forecast tables of many declines in long format; returns a dict of arrays.
+/// Forecast tables of many Arps declines in long format (parallel, GIL released).
+///
+/// Args:
+///     qi (per day), di (nominal per year), b: per decline (NaN: no rows).
+///     t_from, t_max: forecast start and horizon, days since the start of each decline.
+///     d_min: terminal nominal decline per year; q_limit: economic limit per day;
+///     step_days: step length, days (default one average month, 30.4375).
+///
+/// Returns:
+///     Dict of arrays ``index`` (decline of each row), ``t`` (step start, days),
+///     ``rate`` (mean rate over the step, per day), ``volume`` and ``cumulative``
+///     (rate x days).
 #[pyfunction]
 #[pyo3(signature = (qi, di, b, t_from, t_max, *, d_min = 0.0, q_limit = 1.0, step_days = None))]
 #[allow(clippy::too_many_arguments)]

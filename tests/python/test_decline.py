@@ -296,3 +296,50 @@ def test_percentiles_match_numpy_definition():
 def test_functions_pickle_roundtrip_for_workers():
     # the module functions travel to Dask workers by reference
     assert pickle.loads(pickle.dumps(dc.fit_production)) is dc.fit_production
+
+
+def test_user_start_time_skips_a_ramp_up():
+    t = np.arange(60.0) * MONTH
+    q = st.arps_rate(500.0, 1.0, 0.6, t)
+    q[:4] = [50.0, 150.0, 300.0, 800.0]  # ramp-up then a flush month above the decline
+    free = dc.fit_decline(t, q, n_bootstrap=0)  # peak start lands on the flush month
+    user = dc.fit_decline(t, q, start_time=4 * MONTH, n_bootstrap=0)
+    assert user["t0"] == pytest.approx(4 * MONTH)
+    qi4 = st.arps_rate(500.0, 1.0, 0.6, 4 * MONTH)
+    assert user["qi"] == pytest.approx(qi4, rel=1e-6) and user["b"] == pytest.approx(0.6, abs=1e-5)
+    assert free["t0"] == pytest.approx(3 * MONTH)
+    # per-well start times in a DataFrame fit, by well key
+    df = pd.DataFrame({"well": ["A"] * 60 + ["B"] * 60, "t": np.r_[t, t], "oil": np.r_[q, q]})
+    fits = dc.fit_production(df, time="t", start_time={"A": 4 * MONTH}, n_bootstrap=0)
+    assert fits.loc["A", "oil_t0"] == pytest.approx(4 * MONTH)
+    assert fits.loc["B", "oil_t0"] == pytest.approx(3 * MONTH)
+
+
+# --------------------------------------------------------------------------- properties
+
+from hypothesis import given, settings  # noqa: E402
+from hypothesis import strategies as hs  # noqa: E402
+
+
+@settings(max_examples=60, deadline=None)
+@given(
+    qi=hs.floats(1.0, 1e5),
+    di=hs.floats(0.01, 20.0),
+    b=hs.floats(0.0, 2.5),
+    d_min=hs.sampled_from([0.0, 0.05, 0.3]),
+    t=hs.floats(0.0, 2e4),
+)
+def test_properties_scalar_equals_array_monotone_and_inverse(qi, di, b, d_min, t):
+    q = st.arps_rate(qi, di, b, t, d_min=d_min)
+    arr = st.arps_rate(np.array([qi]), di, b, np.array([t]), d_min=d_min)
+    assert arr[0] == q
+    assert 0.0 <= q <= qi
+    # rate falls and cumulative rises with time
+    assert st.arps_rate(qi, di, b, t + 10.0, d_min=d_min) <= q
+    np0 = st.arps_cumulative(qi, di, b, t, d_min=d_min)
+    assert st.arps_cumulative(qi, di, b, t + 10.0, d_min=d_min) >= np0
+    # the cumulative never exceeds qi * t
+    assert np0 <= qi * t * (1 + 1e-12) + 1e-9
+    if q > 0:
+        back = st.arps_time_to_rate(qi, di, b, q, d_min=d_min)
+        assert back == pytest.approx(t, rel=1e-6, abs=1e-6)
