@@ -243,7 +243,7 @@ where
     let sources: [Source<'_>; N] = inputs.each_ref().map(|v| source(v, &shape));
     let mut outs: [Vec<f64>; M] = std::array::from_fn(|_| vec![0.0; total]);
 
-    let run = |start: usize, chunk: [&mut [f64]; M]| -> Option<(Vec<usize>, Error)> {
+    let run = |start: usize, mut chunk: [&mut [f64]; M]| -> Option<(Vec<usize>, Error)> {
         let len = chunk[0].len();
         let mut multi = vec![0usize; shape.len()];
         unravel(start, &shape, &mut multi);
@@ -261,8 +261,8 @@ where
                     },
                 }
             };
-            for m in 0..M {
-                chunk[m][k] = y[m];
+            for (out, v) in chunk.iter_mut().zip(y) {
+                out[k] = v;
             }
             advance(&mut multi, &shape);
         }

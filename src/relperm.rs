@@ -37,9 +37,19 @@ fn end_point(arg: &'static str, v: f64) -> Result<f64> {
     }
 }
 
+/// Saturations closer than this to an end point (as a fraction of the mobile range) count as
+/// the end point, so that e.g. kro is exactly zero at So = Sor despite rounding in `1 - Sw`.
+const END_POINT_SNAP: f64 = 1e-12;
+
 #[inline]
 fn clamp01(x: f64) -> f64 {
-    x.clamp(0.0, 1.0)
+    if x <= END_POINT_SNAP {
+        0.0
+    } else if x >= 1.0 - END_POINT_SNAP {
+        1.0
+    } else {
+        x
+    }
 }
 
 /// Corey oil-water relative permeabilities (water-wet or mixed-wet, two-phase).

@@ -4,6 +4,7 @@ from typing import Any, Dict, Tuple, Union, overload
 
 import numpy as np
 import numpy.typing as npt
+from typing_extensions import final
 
 __version__: str
 
@@ -21,6 +22,7 @@ class OutOfRangeError(StocktankError): ...
 
 # ---- relperm -------------------------------------------------------------------------------
 
+@final
 class CoreyOilWater:
     def __new__(
         cls,
@@ -48,6 +50,7 @@ class CoreyOilWater:
     def krow(self, sw: ArrayLike) -> FloatOrArray: ...
     def __reduce__(self) -> Tuple[Any, Tuple[Any, Dict[str, float]], None]: ...
 
+@final
 class CoreyGasOil:
     def __new__(
         cls,
@@ -87,6 +90,90 @@ class CoreyGasOil:
 
 # ---- water ---------------------------------------------------------------------------------
 
+@final
+class Water:
+    def __new__(
+        cls,
+        *,
+        salinity_wt_pct: float = 0.0,
+        gas_saturated: bool = True,
+        viscosity_method: str = "meehan",
+        p_sc: float = 14.696,
+        t_sc: float = 60.0,
+    ) -> Water: ...
+    @property
+    def salinity_wt_pct(self) -> float: ...
+    @property
+    def gas_saturated(self) -> bool: ...
+    @property
+    def viscosity_method(self) -> str: ...
+    @property
+    def p_sc(self) -> float: ...
+    @property
+    def t_sc(self) -> float: ...
+    def bw(self, p: ArrayLike, t: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def rsw(self, p: ArrayLike, t: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def density(self, p: ArrayLike, t: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def compressibility(
+        self, p: ArrayLike, t: ArrayLike, *, errors: str = "raise"
+    ) -> FloatOrArray: ...
+    def viscosity(self, p: ArrayLike, t: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+    def compressibility_with_gas_release(
+        self, p: ArrayLike, t: ArrayLike, bg_rb_per_scf: ArrayLike, *, errors: str = "raise"
+    ) -> FloatOrArray: ...
+    def in_range(self, p: ArrayLike, t: ArrayLike) -> Union[bool, npt.NDArray[np.bool_]]: ...
+    def __reduce__(self) -> Tuple[Any, Tuple[Any, Dict[str, Any]], None]: ...
+
+def water_bw(
+    p: ArrayLike, t: ArrayLike, *, p_sc: float = 14.696, t_sc: float = 60.0, errors: str = "raise"
+) -> FloatOrArray: ...
+def water_density(
+    p: ArrayLike, t: ArrayLike, salinity_wt_pct: ArrayLike, *, errors: str = "raise"
+) -> FloatOrArray: ...
+def water_density_sc(salinity_wt_pct: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+def water_rsw(
+    p: ArrayLike, t: ArrayLike, salinity_wt_pct: ArrayLike, *, errors: str = "raise"
+) -> FloatOrArray: ...
+def water_compressibility(
+    p: ArrayLike,
+    t: ArrayLike,
+    salinity_wt_pct: ArrayLike,
+    *,
+    gas_saturated: bool = False,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def water_compressibility_with_gas_release(
+    p: ArrayLike,
+    t: ArrayLike,
+    salinity_wt_pct: ArrayLike,
+    bg_rb_per_scf: ArrayLike,
+    *,
+    p_sc: float = 14.696,
+    t_sc: float = 60.0,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def water_viscosity(
+    p: ArrayLike,
+    t: ArrayLike,
+    salinity_wt_pct: ArrayLike,
+    *,
+    method: str = "meehan",
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def salinity_ppm_to_wt_pct(ppm: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+def salinity_wt_pct_to_ppm(salinity_wt_pct: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+def salinity_mg_per_l_to_wt_pct(mg_per_l: ArrayLike, *, errors: str = "raise") -> FloatOrArray: ...
+def water_bw_in_range(p: ArrayLike, t: ArrayLike) -> Union[bool, npt.NDArray[np.bool_]]: ...
+def water_density_sc_in_range(salinity_wt_pct: ArrayLike) -> Union[bool, npt.NDArray[np.bool_]]: ...
+def water_rsw_in_range(
+    p: ArrayLike, t: ArrayLike, salinity_wt_pct: ArrayLike
+) -> Union[bool, npt.NDArray[np.bool_]]: ...
+def water_compressibility_in_range(
+    p: ArrayLike, t: ArrayLike, salinity_wt_pct: ArrayLike
+) -> Union[bool, npt.NDArray[np.bool_]]: ...
+def water_viscosity_in_range(
+    p: ArrayLike, t: ArrayLike, salinity_wt_pct: ArrayLike, *, method: str = "meehan"
+) -> Union[bool, npt.NDArray[np.bool_]]: ...
 
 # ---- material_balance ----------------------------------------------------------------------
 

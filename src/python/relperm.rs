@@ -65,7 +65,7 @@ impl CoreyOilWater {
     fn __repr__(&self) -> String {
         let k = &self.0;
         format!(
-            "CoreyOilWater(swc={}, sorw={}, krw_max={}, kro_max={}, nw={}, no={})",
+            "CoreyOilWater(swc={:?}, sorw={:?}, krw_max={:?}, kro_max={:?}, nw={:?}, no={:?})",
             k.swc, k.sorw, k.krw_max, k.kro_max, k.nw, k.no
         )
     }
@@ -164,7 +164,7 @@ impl CoreyGasOil {
     fn __repr__(&self) -> String {
         let k = &self.0;
         format!(
-            "CoreyGasOil(swc={}, sgc={}, sorg={}, krg_max={}, kro_max={}, ng={}, no={})",
+            "CoreyGasOil(swc={:?}, sgc={:?}, sorg={:?}, krg_max={:?}, kro_max={:?}, ng={:?}, no={:?})",
             k.swc, k.sgc, k.sorg, k.krg_max, k.kro_max, k.ng, k.no
         )
     }

@@ -1,0 +1,63 @@
+"""Package-level behaviour shared by every domain: exceptions, array semantics, pickling."""
+
+import pickle
+
+import numpy as np
+import pytest
+
+import stocktank as st
+
+
+def test_exception_hierarchy_is_valueerror():
+    for exc in (
+        st.InvalidArgumentError,
+        st.ShapeError,
+        st.InvalidOptionError,
+        st.InvalidRecordError,
+        st.ConvergenceError,
+        st.SingularError,
+        st.OutOfRangeError,
+    ):
+        assert issubclass(exc, st.StocktankError)
+    assert issubclass(st.StocktankError, ValueError)
+
+
+def test_version_is_a_string():
+    assert isinstance(st.__version__, str) and st.__version__.count(".") == 2
+
+
+def test_scalar_in_float_out_array_in_array_out():
+    kr = st.CoreyOilWater(swc=0.2, sorw=0.2, krw_max=0.5, kro_max=1.0, nw=2.0, no=2.0)
+    assert isinstance(kr.krw(0.5), float)
+    out = kr.krw([0.2, 0.5, 0.8])
+    assert isinstance(out, np.ndarray) and out.dtype == np.float64
+    # Corey formula evaluated by hand: 0.5 * ((0.5 - 0.2) / 0.6) ** 2 (Brooks-Corey 1964 form).
+    np.testing.assert_allclose(out, [0.0, 0.5 * 0.25, 0.5], rtol=1e-14)
+    # integer input is coerced; shapes are kept
+    assert kr.krow(np.array([[1, 0]])).shape == (1, 2)
+
+
+def test_nan_in_nan_out():
+    kr = st.CoreyGasOil(swc=0.2, sgc=0.05, sorg=0.1)
+    out = kr.krg(np.array([np.nan, 0.3]))
+    assert np.isnan(out[0]) and out[1] > 0
+
+
+def test_invalid_parameter_names_argument_and_value():
+    with pytest.raises(st.InvalidArgumentError, match=r"`sorw` = 0\.9"):
+        st.CoreyOilWater(swc=0.2, sorw=0.9)
+
+
+def test_description_objects_pickle_compare_and_print():
+    kr = st.CoreyGasOil(swc=0.2, sgc=0.05, sorg=0.1, krg_max=0.9, ng=2.5)
+    back = pickle.loads(pickle.dumps(kr))
+    assert back == kr and back is not kr
+    assert back != st.CoreyGasOil(swc=0.2, sgc=0.06, sorg=0.1, krg_max=0.9, ng=2.5)
+    assert repr(kr).startswith("CoreyGasOil(swc=0.2, sgc=0.05")
+    assert eval(repr(kr), {"CoreyGasOil": st.CoreyGasOil}) == kr
+
+
+def test_critical_gas_saturation_blocks_flow():
+    # Gas does not flow below its critical saturation (common practice, no source).
+    kr = st.CoreyGasOil(swc=0.2, sgc=0.05, sorg=0.1)
+    assert np.all(kr.krg(np.linspace(0.0, 0.05, 11)) == 0.0)
