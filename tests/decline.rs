@@ -5,7 +5,7 @@
 
 use stocktank::decline::{
     Arps, FitOptions, FitStatus, Loss, Period, Start, cumulative, effective_decline, fit_well,
-    fit_wells, forecast, nominal_decline, rate, time_to_rate,
+    fit_wells, forecast, nominal_decline, rate, rate_at_cumulative, remaining, time_to_rate,
 };
 use stocktank::units::{DAYS_PER_MONTH, DAYS_PER_YEAR};
 
@@ -376,4 +376,43 @@ fn forecast_volumes_add_up_to_remaining() {
     assert!(rel(total, rem) < 1e-12);
     assert!(rows.windows(2).all(|w| w[1].rate < w[0].rate));
     assert!(rel(rows.last().unwrap().cumulative, rem) < 1e-12);
+}
+
+#[test]
+fn rate_against_cumulative_closed_forms() {
+    // Arps (1945): b = 0: q = qi - D Np; b = 1: q = qi exp(-D Np / qi);
+    // 0 < b < 1: q = qi (1 - (1 - b) D Np / qi)^(1 / (1 - b)).
+    let (qi, di) = (640.0, 0.9);
+    let d = di / DAYS_PER_YEAR;
+    for &np in &[0.0, 1.0e4, 2.0e5] {
+        assert!((rate_at_cumulative(qi, di, 0.0, 0.0, np).unwrap() - (qi - d * np)).abs() < 1e-9);
+        let h = qi * (-d * np / qi).exp();
+        assert!(rel(rate_at_cumulative(qi, di, 1.0, 0.0, np).unwrap(), h) < 1e-12);
+        let b = 0.4;
+        let hyp = qi * (1.0 - (1.0 - b) * d * np / qi).powf(1.0 / (1.0 - b));
+        assert!(rel(rate_at_cumulative(qi, di, b, 0.0, np).unwrap(), hyp) < 1e-12);
+    }
+    // beyond the ultimate cumulative of an exponential: an error naming np
+    let e = rate_at_cumulative(qi, di, 0.0, 0.0, qi / d * 1.01)
+        .unwrap_err()
+        .to_string();
+    assert!(e.contains("`np`"), "{e}");
+    // with a terminal decline, time_at_cumulative inverts cumulative on both sides of the switch
+    let a = Arps::new(qi, 2.5, 1.4, 0.1).unwrap();
+    for &t in &[100.0, a.switch_time() * 0.9, a.switch_time() * 1.5] {
+        let np = a.cumulative(t).unwrap();
+        assert!(rel(a.time_at_cumulative(np).unwrap(), t) < 1e-9);
+    }
+    let r = remaining(qi, di, 0.5, 0.0, 300.0, 5.0, f64::INFINITY).unwrap();
+    assert!(
+        rel(
+            r,
+            a_eur(qi, di) - cumulative(qi, di, 0.5, 0.0, 300.0).unwrap()
+        ) < 1e-12
+    );
+    assert!(remaining(qi, di, 0.5, 0.0, 300.0, 5.0, -1.0).is_err());
+}
+
+fn a_eur(qi: f64, di: f64) -> f64 {
+    stocktank::decline::eur(qi, di, 0.5, 0.0, 5.0, f64::INFINITY).unwrap()
 }

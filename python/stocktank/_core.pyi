@@ -205,6 +205,20 @@ def arps_eur(
     t_max: ArrayLike | None = None,
     errors: str = "raise",
 ) -> FloatOrArray: ...
+def arps_rate_at_cumulative(
+    qi: ArrayLike, di: ArrayLike, b: ArrayLike, np: ArrayLike, *, d_min: ArrayLike | None = None, errors: str = "raise"
+) -> FloatOrArray: ...
+def arps_remaining(
+    qi: ArrayLike,
+    di: ArrayLike,
+    b: ArrayLike,
+    t_from: ArrayLike,
+    q_limit: ArrayLike,
+    *,
+    d_min: ArrayLike | None = None,
+    t_max: ArrayLike | None = None,
+    errors: str = "raise",
+) -> FloatOrArray: ...
 def effective_decline(
     d_nominal_per_year: ArrayLike, b: ArrayLike, *, period: str = "year", errors: str = "raise"
 ) -> FloatOrArray: ...

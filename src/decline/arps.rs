@@ -24,23 +24,48 @@ use crate::error::{Error, Result, non_negative, positive};
 use crate::units::DAYS_PER_YEAR;
 use ndarray::{ArrayD, ArrayViewD};
 
+/// Below this |product| the helpers use three-term series (relative error below 1e-16);
+/// this also keeps tiny (even subnormal) `b` from underflowing to a wrong zero.
+const SERIES: f64 = 1e-5;
+
 /// `ln(1 + b x) / b`, the log of the rate ratio qi/q; equal to `x` at `b = 0`.
 #[inline]
 fn log_ratio(b: f64, x: f64) -> f64 {
-    if b == 0.0 { x } else { (b * x).ln_1p() / b }
+    let y = b * x;
+    if b == 0.0 {
+        x
+    } else if y.abs() < SERIES {
+        x * (1.0 - y * (0.5 - y / 3.0))
+    } else {
+        y.ln_1p() / b
+    }
 }
 
 /// `(1 - exp(-(1 - b) L)) / (1 - b)`, the dimensionless cumulative; equal to `L` at `b = 1`.
 #[inline]
 fn cum_factor(b: f64, l: f64) -> f64 {
     let e = 1.0 - b;
-    if e == 0.0 { l } else { -(-e * l).exp_m1() / e }
+    let y = e * l;
+    if e == 0.0 {
+        l
+    } else if y.abs() < SERIES {
+        l * (1.0 - y * (0.5 - y / 6.0))
+    } else {
+        -(-y).exp_m1() / e
+    }
 }
 
 /// Inverse of [`log_ratio`]: the dimensionless time `x` at which `ln(qi/q) = l`.
 #[inline]
 fn x_from_log_ratio(b: f64, l: f64) -> f64 {
-    if b == 0.0 { l } else { (b * l).exp_m1() / b }
+    let y = b * l;
+    if b == 0.0 {
+        l
+    } else if y.abs() < SERIES {
+        l * (1.0 + y * (0.5 + y / 6.0))
+    } else {
+        y.exp_m1() / b
+    }
 }
 
 /// An Arps decline with an optional terminal exponential decline (the "modified
@@ -286,11 +311,73 @@ impl Arps {
     /// ```
     pub fn remaining(&self, t_from: f64, q_limit: f64, t_max: f64) -> Result<f64> {
         let t_from = non_negative("t_from", t_from)?;
+        if t_max.is_nan() || t_max < 0.0 {
+            return Err(Error::invalid("t_max", t_max, "must be >= 0 days (or inf)"));
+        }
         let t_end = self.time_to_rate(q_limit)?.min(t_max);
         if t_from >= t_end {
             return Ok(0.0);
         }
         Ok(self.cumulative(t_end)? - self.cumulative(t_from)?)
+    }
+
+    /// Time in days at which the cumulative production reaches `np` (rate x days): the
+    /// inverse of [`Arps::cumulative`], so that rate against cumulative is
+    /// `rate(time_at_cumulative(np))`.
+    ///
+    /// # Formula
+    /// ```text
+    /// hyperbolic part: L = -ln(1 - (1 - b) D Np / qi) / (1 - b)   (L = D Np / qi at b = 1)
+    ///                  t = (exp(b L) - 1) / (b D)                  (t = L / D at b = 0)
+    /// terminal part:   t = t_sw + ln(q_sw / (q_sw - d_min (Np - Np_sw))) / d_min
+    /// ```
+    /// For `b = 0` this gives the straight line `q = qi - D Np` of rate against cumulative.
+    ///
+    /// # Errors
+    /// [`Error::InvalidArgument`] naming `np` when negative, NaN, or at or beyond the
+    /// ultimate cumulative of the decline.
+    ///
+    /// # Examples
+    /// ```
+    /// let a = stocktank::decline::Arps::new(100.0, 0.5, 0.0, 0.0).unwrap();
+    /// // exponential: q = qi - D Np
+    /// let np = 20_000.0;
+    /// let q = a.rate(a.time_at_cumulative(np).unwrap()).unwrap();
+    /// assert!((q - (100.0 - 0.5 / 365.25 * np)).abs() < 1e-9);
+    /// ```
+    pub fn time_at_cumulative(&self, np: f64) -> Result<f64> {
+        crate::error::non_negative("np", np)?;
+        let t_sw = self.switch_time();
+        let (q_sw, np_sw) = if t_sw.is_finite() {
+            self.head_at(t_sw)
+        } else {
+            (0.0, f64::INFINITY)
+        };
+        const BEYOND: &str = "must be below the ultimate cumulative of the decline";
+        if np <= np_sw {
+            let (d, b) = self.head();
+            let z = d * np / self.qi;
+            let e = 1.0 - b;
+            let arg = -e * z;
+            if arg <= -1.0 {
+                return Err(Error::invalid("np", np, BEYOND));
+            }
+            // -ln(1 - e z)/e, i.e. log_ratio with exponent -e
+            let l = log_ratio(-e, z);
+            let t = x_from_log_ratio(b, l) / d;
+            if t.is_finite() {
+                Ok(t)
+            } else {
+                Err(Error::invalid("np", np, BEYOND))
+            }
+        } else {
+            let dm = self.d_min / DAYS_PER_YEAR;
+            let q = q_sw - dm * (np - np_sw);
+            if q <= 0.0 {
+                return Err(Error::invalid("np", np, BEYOND));
+            }
+            Ok(t_sw + (q_sw / q).ln() / dm)
+        }
     }
 }
 
@@ -405,6 +492,135 @@ pub fn time_to_rate(qi: f64, di: f64, b: f64, d_min: f64, q_limit: f64) -> Resul
 #[inline]
 pub fn eur(qi: f64, di: f64, b: f64, d_min: f64, q_limit: f64, t_max: f64) -> Result<f64> {
     Arps::new(qi, di, b, d_min)?.eur(q_limit, t_max)
+}
+
+/// Arps rate (per day) once the cumulative production has reached `np` (rate against
+/// cumulative).
+///
+/// # Formula
+/// `q = rate(time_at_cumulative(np))`; see [`Arps::time_at_cumulative`]. Closed forms:
+/// `q = qi - D Np` (b = 0), `q = qi exp(-D Np / qi)` (b = 1),
+/// `q = qi (1 - (1 - b) D Np / qi)^(1/(1-b))` otherwise (Arps 1945).
+///
+/// # Arguments
+/// As [`rate`], with `np` (rate x days, >= 0) in place of `t`.
+///
+/// # Returns
+/// Rate, per day.
+///
+/// # Errors
+/// [`Error::InvalidArgument`] naming the offending argument (`np` at or beyond the
+/// ultimate cumulative).
+///
+/// # Examples
+/// ```
+/// // harmonic: q = qi exp(-D Np / qi)
+/// let q = stocktank::decline::rate_at_cumulative(100.0, 1.0, 1.0, 0.0, 10_000.0).unwrap();
+/// assert!((q - 100.0 * (-10_000.0 / 365.25 / 100.0f64).exp()).abs() < 1e-10);
+/// ```
+///
+/// # References
+/// Arps, J.J. (1945). Analysis of Decline Curves. Trans. AIME 160(1), 228-247.
+#[inline]
+pub fn rate_at_cumulative(qi: f64, di: f64, b: f64, d_min: f64, np: f64) -> Result<f64> {
+    let a = Arps::new(qi, di, b, d_min)?;
+    a.rate(a.time_at_cumulative(np)?)
+}
+
+/// Volume still to produce from `t_from` days (since the start of the decline) to the
+/// economic limit `q_limit` (per day) or the horizon `t_max` days: see [`Arps::remaining`].
+///
+/// # Arguments
+/// As [`eur`], with `t_from` (days, >= 0).
+///
+/// # Returns
+/// Volume (rate x days); 0 when the decline is already past the limit or the horizon.
+///
+/// # Errors
+/// [`Error::InvalidArgument`] naming the offending argument.
+///
+/// # Examples
+/// ```
+/// use stocktank::decline::{eur, remaining, cumulative};
+/// let r = remaining(100.0, 0.5, 0.0, 0.0, 365.25, 10.0, f64::INFINITY).unwrap();
+/// let e = eur(100.0, 0.5, 0.0, 0.0, 10.0, f64::INFINITY).unwrap();
+/// assert!((r - (e - cumulative(100.0, 0.5, 0.0, 0.0, 365.25).unwrap())).abs() < 1e-6);
+/// ```
+///
+/// # References
+/// Arps, J.J. (1945). Analysis of Decline Curves. Trans. AIME 160(1), 228-247.
+#[inline]
+pub fn remaining(
+    qi: f64,
+    di: f64,
+    b: f64,
+    d_min: f64,
+    t_from: f64,
+    q_limit: f64,
+    t_max: f64,
+) -> Result<f64> {
+    Arps::new(qi, di, b, d_min)?.remaining(t_from, q_limit, t_max)
+}
+
+/// [`rate_at_cumulative`] over broadcast arrays.
+///
+/// # Errors
+/// [`Error::Shape`], or the kernel's error with the element index.
+///
+/// # Examples
+/// ```
+/// use stocktank::array::OnError;
+/// let s = |v: f64| ndarray::arr0(v).into_dyn();
+/// let q = stocktank::decline::rate_at_cumulative_array(s(100.0).view(), s(0.5).view(),
+///     s(0.0).view(), s(0.0).view(), s(0.0).view(), OnError::Raise).unwrap();
+/// assert_eq!(q[[]], 100.0);
+/// ```
+pub fn rate_at_cumulative_array(
+    qi: ArrayViewD<'_, f64>,
+    di: ArrayViewD<'_, f64>,
+    b: ArrayViewD<'_, f64>,
+    d_min: ArrayViewD<'_, f64>,
+    np: ArrayViewD<'_, f64>,
+    on_error: OnError,
+) -> Result<ArrayD<f64>> {
+    lift(
+        ["qi", "di", "b", "d_min", "np"],
+        [qi, di, b, d_min, np],
+        on_error,
+        |[qi, di, b, d_min, np]| rate_at_cumulative(qi, di, b, d_min, np),
+    )
+}
+
+/// [`remaining`] over broadcast arrays.
+///
+/// # Errors
+/// [`Error::Shape`], or the kernel's error with the element index.
+///
+/// # Examples
+/// ```
+/// use stocktank::array::OnError;
+/// let s = |v: f64| ndarray::arr0(v).into_dyn();
+/// let r = stocktank::decline::remaining_array(s(100.0).view(), s(0.5).view(), s(0.0).view(),
+///     s(0.0).view(), s(0.0).view(), s(10.0).view(), s(f64::INFINITY).view(), OnError::Raise).unwrap();
+/// assert!((r[[]] - 65745.0).abs() < 1e-6);
+/// ```
+#[allow(clippy::too_many_arguments)]
+pub fn remaining_array(
+    qi: ArrayViewD<'_, f64>,
+    di: ArrayViewD<'_, f64>,
+    b: ArrayViewD<'_, f64>,
+    d_min: ArrayViewD<'_, f64>,
+    t_from: ArrayViewD<'_, f64>,
+    q_limit: ArrayViewD<'_, f64>,
+    t_max: ArrayViewD<'_, f64>,
+    on_error: OnError,
+) -> Result<ArrayD<f64>> {
+    lift(
+        ["qi", "di", "b", "d_min", "t_from", "q_limit", "t_max"],
+        [qi, di, b, d_min, t_from, q_limit, t_max],
+        on_error,
+        |[qi, di, b, d_min, tf, q, tm]| remaining(qi, di, b, d_min, tf, q, tm),
+    )
 }
 
 /// The period over which an effective decline is quoted.

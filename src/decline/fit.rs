@@ -448,7 +448,14 @@ fn log_ratio(b: f64, x: f64) -> f64 {
 /// Inverse of [`log_ratio`] in x: `(exp(b l) - 1) / b`, `l` at `b = 0`.
 #[inline]
 fn x_from_log_ratio(b: f64, l: f64) -> f64 {
-    if b == 0.0 { l } else { (b * l).exp_m1() / b }
+    let y = b * l;
+    if b == 0.0 {
+        l
+    } else if y.abs() < 1e-5 {
+        l * (1.0 + y * (0.5 + y / 6.0))
+    } else {
+        y.exp_m1() / b
+    }
 }
 
 /// ln q and its gradient with respect to theta = (ln qi, ln di, b) at `tau` years.

@@ -22,8 +22,8 @@ mod forecast;
 
 pub use arps::{
     Arps, Period, cumulative, cumulative_array, effective_decline, effective_decline_array, eur,
-    eur_array, nominal_decline, nominal_decline_array, rate, rate_array, time_to_rate,
-    time_to_rate_array,
+    eur_array, nominal_decline, nominal_decline_array, rate, rate_array, rate_at_cumulative,
+    rate_at_cumulative_array, remaining, remaining_array, time_to_rate, time_to_rate_array,
 };
 pub use fit::{FitOptions, FitStatus, Loss, Start, WellFit, fit_well, fit_wells};
 pub use forecast::{ForecastStep, MONTH_STEP_DAYS, forecast, forecast_many};

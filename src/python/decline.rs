@@ -121,6 +121,67 @@ fn arps_eur(
     )
 }
 
+/// Arps (1945) rate once the cumulative production has reached ``np`` (rate against cumulative).
+///
+/// Args: as :func:`arps_rate`, with ``np`` (cumulative, rate x days, >= 0) in place of
+/// ``t``; ``np`` at or beyond the ultimate cumulative of the decline is an error.
+///
+/// Returns:
+///     Rate, per day. For b = 0 this is the straight line ``q = qi - D np``.
+#[pyfunction]
+#[pyo3(signature = (qi, di, b, np, *, d_min = None, errors = "raise"))]
+fn arps_rate_at_cumulative(
+    py: Python<'_>,
+    qi: In<'_>,
+    di: In<'_>,
+    b: In<'_>,
+    np: In<'_>,
+    d_min: Option<In<'_>>,
+    errors: &str,
+) -> PyResult<Py<PyAny>> {
+    let oe = on_error(errors)?;
+    let zero = zero_like(py, d_min)?;
+    call(
+        py,
+        [&qi, &di, &b, &zero, &np],
+        move |[qi, di, b, dm, np]| core::rate_at_cumulative_array(qi, di, b, dm, np, oe),
+    )
+}
+
+/// Arps remaining volume from ``t_from`` days to the economic limit or the horizon.
+///
+/// Args: as :func:`arps_eur`, with ``t_from`` (days since the start of the decline, >= 0)
+/// and ``t_max`` (days since the start of the decline, default inf).
+///
+/// Returns:
+///     ``Np(t_end) - Np(t_from)`` in rate x days, 0 when already past the limit or horizon.
+#[pyfunction]
+#[pyo3(signature = (qi, di, b, t_from, q_limit, *, d_min = None, t_max = None, errors = "raise"))]
+#[allow(clippy::too_many_arguments)]
+fn arps_remaining(
+    py: Python<'_>,
+    qi: In<'_>,
+    di: In<'_>,
+    b: In<'_>,
+    t_from: In<'_>,
+    q_limit: In<'_>,
+    d_min: Option<In<'_>>,
+    t_max: Option<In<'_>>,
+    errors: &str,
+) -> PyResult<Py<PyAny>> {
+    let oe = on_error(errors)?;
+    let zero = zero_like(py, d_min)?;
+    let t_max = match t_max {
+        Some(t) => t,
+        None => f64::INFINITY.into_pyobject(py)?.into_any().extract()?,
+    };
+    call(
+        py,
+        [&qi, &di, &b, &zero, &t_from, &q_limit, &t_max],
+        move |[qi, di, b, dm, tf, q, tm]| core::remaining_array(qi, di, b, dm, tf, q, tm, oe),
+    )
+}
+
 /// Effective (secant) decline over one period from a nominal decline per year.
 ///
 /// ``1 - (1 + b D dt)^(-1/b)`` (``1 - exp(-D dt)`` at b = 0), dt = 1 year or 1/12.
@@ -386,6 +447,8 @@ pub(super) fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(arps_cumulative, m)?)?;
     m.add_function(wrap_pyfunction!(arps_time_to_rate, m)?)?;
     m.add_function(wrap_pyfunction!(arps_eur, m)?)?;
+    m.add_function(wrap_pyfunction!(arps_rate_at_cumulative, m)?)?;
+    m.add_function(wrap_pyfunction!(arps_remaining, m)?)?;
     m.add_function(wrap_pyfunction!(effective_decline, m)?)?;
     m.add_function(wrap_pyfunction!(nominal_decline, m)?)?;
     m.add_function(wrap_pyfunction!(fit_decline_batch, m)?)?;

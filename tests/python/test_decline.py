@@ -343,3 +343,20 @@ def test_properties_scalar_equals_array_monotone_and_inverse(qi, di, b, d_min, t
     if q > 0:
         back = st.arps_time_to_rate(qi, di, b, q, d_min=d_min)
         assert back == pytest.approx(t, rel=1e-6, abs=1e-6)
+
+
+def test_rate_against_cumulative_and_remaining():
+    # Arps (1945): exponential q = qi - D Np; hyperbolic q = qi (1 - (1-b) D Np/qi)^(1/(1-b)).
+    qi, di = 640.0, 0.9
+    d = di / YEAR
+    np_ = np.array([0.0, 1e4, 2e5])
+    np.testing.assert_allclose(st.arps_rate_at_cumulative(qi, di, 0.0, np_), qi - d * np_, rtol=1e-12)
+    b = 0.4
+    np.testing.assert_allclose(
+        st.arps_rate_at_cumulative(qi, di, b, np_), qi * (1 - (1 - b) * d * np_ / qi) ** (1 / (1 - b)), rtol=1e-12
+    )
+    with pytest.raises(st.InvalidArgumentError, match="`np`"):
+        st.arps_rate_at_cumulative(qi, di, 0.0, [1.0, qi / d * 1.01])
+    # remaining = EUR - cumulative to date
+    r = st.arps_remaining(qi, di, 0.7, 500.0, 5.0, d_min=0.06)
+    assert r == pytest.approx(st.arps_eur(qi, di, 0.7, 5.0, d_min=0.06) - st.arps_cumulative(qi, di, 0.7, 500.0, d_min=0.06))
