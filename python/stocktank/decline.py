@@ -216,6 +216,19 @@ def fit_wells(
             ``d_min`` (terminal nominal decline per year, 0 = none), ``horizon_years`` (50),
             ``n_bootstrap`` (100; 0 = no EUR range), ``seed`` (0), ``max_iter``, ``tol``.
 
+    Method (see the Rust docs of ``stocktank::decline`` for formulas and references): the
+    fit minimises ``0.5 * sum(C**2 * rho((r / C)**2))`` of the log-rate residuals ``r`` over
+    (ln qi, ln di, b) within the bounds, the objective of ``scipy.optimize.least_squares``
+    with ``loss`` and ``f_scale=C``. ``qi_se``, ``di_se``, ``b_se`` are asymptotic standard
+    errors (NaN for a parameter on a bound). ``cum_produced`` is the measured volume (rate x
+    time to the next record), ``remaining`` the Arps forecast from ``t_forecast`` to
+    ``q_limit`` or the horizon, ``eur = cum_produced + remaining``. The EUR range is a
+    residual bootstrap: ``n_bootstrap`` synthetic histories (fitted curve times resampled
+    log residuals) are refitted; ``eur_p90`` is the 10th percentile (LOW), ``eur_p50`` the
+    median, ``eur_p10`` the 90th percentile (HIGH), as ``numpy.percentile``. It is seeded
+    from ``seed`` and the well's own data, so it is reproducible and independent of the
+    batch. It reflects scatter about the Arps model only, not model or forecast risk.
+
     Returns:
         A dict of arrays, one element per well sorted by key: ``well`` and every name of
         :data:`FIT_COLUMNS`; ``t0``, ``t_last``, ``t_forecast``, ``t_end`` in the input's
