@@ -519,6 +519,83 @@ def water_viscosity_in_range(
 
 # ---- decline -------------------------------------------------------------------------------
 
+def arps_rate(
+    qi: ArrayLike, di: ArrayLike, b: ArrayLike, t: ArrayLike, *, d_min: ArrayLike | None = None, errors: str = "raise"
+) -> FloatOrArray: ...
+def arps_cumulative(
+    qi: ArrayLike, di: ArrayLike, b: ArrayLike, t: ArrayLike, *, d_min: ArrayLike | None = None, errors: str = "raise"
+) -> FloatOrArray: ...
+def arps_time_to_rate(
+    qi: ArrayLike,
+    di: ArrayLike,
+    b: ArrayLike,
+    q_limit: ArrayLike,
+    *,
+    d_min: ArrayLike | None = None,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def arps_eur(
+    qi: ArrayLike,
+    di: ArrayLike,
+    b: ArrayLike,
+    q_limit: ArrayLike,
+    *,
+    d_min: ArrayLike | None = None,
+    t_max: ArrayLike | None = None,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def arps_rate_at_cumulative(
+    qi: ArrayLike, di: ArrayLike, b: ArrayLike, np: ArrayLike, *, d_min: ArrayLike | None = None, errors: str = "raise"
+) -> FloatOrArray: ...
+def arps_remaining(
+    qi: ArrayLike,
+    di: ArrayLike,
+    b: ArrayLike,
+    t_from: ArrayLike,
+    q_limit: ArrayLike,
+    *,
+    d_min: ArrayLike | None = None,
+    t_max: ArrayLike | None = None,
+    errors: str = "raise",
+) -> FloatOrArray: ...
+def effective_decline(
+    d_nominal_per_year: ArrayLike, b: ArrayLike, *, period: str = "year", errors: str = "raise"
+) -> FloatOrArray: ...
+def nominal_decline(d_effective: ArrayLike, b: ArrayLike, *, period: str = "year", errors: str = "raise") -> FloatOrArray: ...
+def fit_decline_batch(
+    t: ArrayLike,
+    q: ArrayLike,
+    offsets: ArrayLike,
+    start_time: ArrayLike | None = None,
+    *,
+    loss: str = "soft_l1",
+    f_scale: float = 0.2,
+    b_min: float = 0.0,
+    b_max: float = 2.0,
+    di_min: float = 1e-3,
+    di_max: float = 50.0,
+    start: str = "peak",
+    min_points: int = 6,
+    q_limit: float = 1.0,
+    d_min: float = 0.0,
+    horizon_years: float = 50.0,
+    n_bootstrap: int = 100,
+    seed: int = 0,
+    max_iter: int = 200,
+    tol: float = 1e-8,
+) -> Dict[str, Any]: ...
+def forecast_batch(
+    qi: ArrayLike,
+    di: ArrayLike,
+    b: ArrayLike,
+    t_from: ArrayLike,
+    t_max: ArrayLike,
+    *,
+    d_min: float = 0.0,
+    q_limit: float = 1.0,
+    step_days: float | None = None,
+) -> Dict[str, npt.NDArray[Any]]: ...
+
 
 # ---- volumetrics ---------------------------------------------------------------------------
 

@@ -47,6 +47,11 @@ pub const AIR_MOLAR_MASS: f64 = 28.9647;
 /// Density of pure water at 60 degF and 14.696 psia, lbm/ft3 (999.016 kg/m3 from IAPWS-95,
 /// as tabulated by NIST; 62.366 lbm/ft3). The reference for oil specific gravity 60/60 degF.
 pub const WATER_DENSITY_60F: f64 = 999.016 / KG_PER_LBM * M3_PER_FT3;
+/// Days in one year for decline rates and forecasts: the Julian year of 365.25 days (exact by
+/// definition). IAU (1976) system of astronomical constants; NIST SP 811 (2008), App. B.
+pub const DAYS_PER_YEAR: f64 = 365.25;
+/// Days in one average month, 30.4375 (one twelfth of [`DAYS_PER_YEAR`]). Derived.
+pub const DAYS_PER_MONTH: f64 = DAYS_PER_YEAR / 12.0;
 
 /// Standard (base) conditions at which stock-tank and standard gas volumes are measured.
 ///
