@@ -50,9 +50,17 @@ fn kay_dak_against_gerg2008() {
     let mut sum = 0.0;
     for r in &rows {
         for m in [ZMethod::DranchukAbouKassem, ZMethod::HallYarborough] {
-            let gas = Gas::from_composition(&r.y, 0.0, 0.0).unwrap().with_z_method(m);
+            let gas = Gas::from_composition(&r.y, 0.0, 0.0)
+                .unwrap()
+                .with_z_method(m);
             let dev = (gas.z(r.p_psia, r.t_f).unwrap() / r.z - 1.0).abs();
-            assert!(dev < 0.03, "{} {} psia {} degF: {dev}", r.mixture, r.p_psia, r.t_f);
+            assert!(
+                dev < 0.03,
+                "{} {} psia {} degF: {dev}",
+                r.mixture,
+                r.p_psia,
+                r.t_f
+            );
             worst = worst.max(dev);
             sum += dev;
         }
@@ -68,7 +76,10 @@ fn solver_reports_convergence_everywhere_on_the_chart() {
         let ppr = 0.05 + 0.2 * i as f64;
         for j in 0..=50 {
             let tpr = 0.95 + 0.05 * j as f64;
-            for s in [dak_solve(ppr, tpr).unwrap(), hall_yarborough_solve(ppr, tpr).unwrap()] {
+            for s in [
+                dak_solve(ppr, tpr).unwrap(),
+                hall_yarborough_solve(ppr, tpr).unwrap(),
+            ] {
                 assert_eq!(s.termination, Termination::Converged, "ppr {ppr} tpr {tpr}");
                 assert!(s.z > 0.0 && s.z.is_finite());
             }
@@ -83,7 +94,13 @@ fn array_equals_scalar_and_nan_passes_through() {
     let mut ppr = ArrayD::from_shape_vec(IxDyn(&[n]), ppr).unwrap();
     ppr[[7]] = f64::NAN;
     let tpr = ArrayD::from_elem(IxDyn(&[1]), 1.4);
-    let z = z_factor_array(ppr.view(), tpr.view(), ZMethod::DranchukAbouKassem, OnError::Raise).unwrap();
+    let z = z_factor_array(
+        ppr.view(),
+        tpr.view(),
+        ZMethod::DranchukAbouKassem,
+        OnError::Raise,
+    )
+    .unwrap();
     assert!(z[[7]].is_nan());
     for k in (0..n).step_by(997).filter(|&k| k != 7) {
         assert_eq!(z[[k]], stocktank::gas::z_dak(ppr[[k]], 1.4).unwrap());
@@ -95,7 +112,9 @@ fn bg_rb_per_mscf_and_eg_are_consistent() {
     let g = Gas::new(0.68).unwrap();
     let sc = StandardConditions::FIELD;
     let bg = g.property(GasProperty::Bg, 3000.0, 190.0, &sc).unwrap();
-    let rb = g.property(GasProperty::BgRbPerMscf, 3000.0, 190.0, &sc).unwrap();
+    let rb = g
+        .property(GasProperty::BgRbPerMscf, 3000.0, 190.0, &sc)
+        .unwrap();
     let eg = g.property(GasProperty::Eg, 3000.0, 190.0, &sc).unwrap();
     // 1 bbl = 5.614583 ft3 (NIST SP 811).
     assert!((rb - bg * 1000.0 / 5.614_583_333).abs() < 1e-9);

@@ -44,5 +44,5 @@ pub use viscosity::{
 };
 pub use zfactor::{
     MAX_ITERATIONS, MONOTONE_TPR, Termination, Z_TOLERANCE, ZMethod, ZSolution, dak_solve,
-    hall_yarborough_solve, z_dak, z_hall_yarborough, z_papay,
+    hall_yarborough_solve, z_dak, z_dak_batch, z_hall_yarborough, z_papay,
 };
