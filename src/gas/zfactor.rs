@@ -394,22 +394,27 @@ fn papay_guess(ppr: f64, tpr: f64) -> f64 {
 }
 
 /// Grid of solved reduced densities for starting guesses: Ppr from 0 to 32 in steps of
-/// 1/8, Tpr from [`MONOTONE_TPR`] to 3.25 in steps of 1/40, stored as f32 (the guess only
-/// needs a few digits).
+/// 1/8; Tpr from [`MONOTONE_TPR`] to about 3.2, uniform in sqrt(Tpr - 1.05) (steps of 1/60);
+/// stored as f32 (the guess only needs a few digits).
 struct GuessTable {
     data: Box<[f32]>,
 }
 
-const TABLE_NP: usize = 257;
-const TABLE_NT: usize = 89;
-const TABLE_INV_DP: f64 = 8.0;
-const TABLE_INV_DT: f64 = 40.0;
+const TABLE_NP: usize = 513;
+const TABLE_NT: usize = 133;
+const TABLE_INV_DP: f64 = 16.0;
+/// Rows are uniform in w = sqrt(Tpr - 1.05), dense where Z bends most (low Tpr).
+const TABLE_INV_DT: f64 = 90.0;
+/// Tpr - 1.05 at the last row: ((TABLE_NT - 1) / TABLE_INV_DT)^2.
+const TABLE_DT_MAX: f64 =
+    ((TABLE_NT - 1) as f64 / TABLE_INV_DT) * ((TABLE_NT - 1) as f64 / TABLE_INV_DT);
 
 impl GuessTable {
     fn build(solve: impl Fn(f64, f64) -> f64) -> Self {
         let mut data = vec![0.0f32; TABLE_NP * TABLE_NT];
         for j in 0..TABLE_NT {
-            let tpr = MONOTONE_TPR + j as f64 / TABLE_INV_DT;
+            let w = j as f64 / TABLE_INV_DT;
+            let tpr = MONOTONE_TPR + w * w;
             for i in 1..TABLE_NP {
                 data[j * TABLE_NP + i] = solve(i as f64 / TABLE_INV_DP, tpr) as f32;
             }
@@ -423,8 +428,12 @@ impl GuessTable {
     #[inline(always)]
     fn guess(&self, ppr: f64, tpr: f64) -> Option<f64> {
         let u = ppr * TABLE_INV_DP;
-        let v = (tpr - MONOTONE_TPR) * TABLE_INV_DT;
-        if !(u < (TABLE_NP - 1) as f64 && v >= 0.0 && v < (TABLE_NT - 1) as f64) {
+        let dt = tpr - MONOTONE_TPR;
+        if !(u < (TABLE_NP - 1) as f64 && dt >= 0.0 && dt < TABLE_DT_MAX) {
+            return None;
+        }
+        let v = dt.sqrt() * TABLE_INV_DT;
+        if !(v < (TABLE_NT - 1) as f64) {
             return None;
         }
         let (i, j) = (u as usize, v as usize);
