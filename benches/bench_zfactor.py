@@ -9,6 +9,7 @@ is fixed at start); the speed-up to all cores is the ratio of the two processes'
 numpy-relative ratios.
 
 Usage: python benches/bench_zfactor.py [--sizes 1e5,1e6,1e7] [--rounds 5]
+       [--methods dak,hall_yarborough]
 """
 
 import argparse
@@ -70,13 +71,15 @@ def timed(f, *args) -> float:
     return time.perf_counter() - t0
 
 
-def measure(sizes, rounds: int) -> list:
+def measure(sizes, rounds: int, methods) -> list:
     rng = np.random.default_rng(2026)
     rows = []
     for n in sizes:
         ppr = rng.uniform(0.2, 15.0, n)
         tpr = rng.uniform(1.05, 3.0, n)
         for method, baseline in [("dak", numpy_dak), ("hall_yarborough", numpy_hall_yarborough)]:
+            if method not in methods:
+                continue
             # Same answer first (to the baseline's tolerance).
             ours = st.z_factor(ppr[:10000], tpr[:10000], method=method)
             ref = baseline(ppr[:10000], tpr[:10000])
@@ -104,17 +107,19 @@ def main() -> int:
     ap = argparse.ArgumentParser()
     ap.add_argument("--sizes", default="1e5,1e6")
     ap.add_argument("--rounds", type=int, default=5)
+    ap.add_argument("--methods", default="dak,hall_yarborough")
     ap.add_argument("--child", action="store_true", help=argparse.SUPPRESS)
     args = ap.parse_args()
     sizes = [int(float(s)) for s in args.sizes.split(",")]
-    rows = measure(sizes, args.rounds)
+    rows = measure(sizes, args.rounds, args.methods.split(","))
     if args.child:
         for r in rows:
             print(f"{r['n']} {r['method']} {r['ours_ns']} {r['numpy_ns']} {r['ratio']}")
         return 0
     env = dict(os.environ, RAYON_NUM_THREADS="1")
     out = subprocess.run(
-        [sys.executable, __file__, "--child", "--sizes", args.sizes, "--rounds", str(args.rounds)],
+        [sys.executable, __file__, "--child", "--sizes", args.sizes, "--rounds", str(args.rounds),
+         "--methods", args.methods],
         env=env, capture_output=True, text=True, check=True,
     ).stdout.split("\n")
     single = {}

@@ -299,8 +299,8 @@ fn lowest_root<F: Fn(f64) -> (f64, f64) + Copy>(
 /// Functions. Prentice-Hall.
 #[inline(always)]
 fn exp_nonpositive(x: f64) -> f64 {
-    const LN2_HI: f64 = 6.931_471_803_691_238_164_9e-1;
-    const LN2_LO: f64 = 1.908_214_929_270_587_700_02e-10;
+    const LN2_HI: f64 = 6.931_471_803_691_238e-1;
+    const LN2_LO: f64 = 1.908_214_929_270_587_7e-10;
     // 1.5 * 2^52: adding it rounds to an integer held in the low mantissa bits.
     const MAGIC: f64 = 6_755_399_441_055_744.0;
     let x = x.max(-700.0);
@@ -429,11 +429,12 @@ impl GuessTable {
     fn guess(&self, ppr: f64, tpr: f64) -> Option<f64> {
         let u = ppr * TABLE_INV_DP;
         let dt = tpr - MONOTONE_TPR;
-        if !(u < (TABLE_NP - 1) as f64 && dt >= 0.0 && dt < TABLE_DT_MAX) {
+        let in_grid = u < (TABLE_NP - 1) as f64 && (0.0..TABLE_DT_MAX).contains(&dt);
+        if !in_grid {
             return None;
         }
         let v = dt.sqrt() * TABLE_INV_DT;
-        if !(v < (TABLE_NT - 1) as f64) {
+        if v >= (TABLE_NT - 1) as f64 {
             return None;
         }
         let (i, j) = (u as usize, v as usize);
