@@ -301,6 +301,11 @@ where
 }
 
 /// Elements handed at once to the kernel of [`lift_batched`].
+///
+/// # Examples
+/// ```
+/// assert_eq!(stocktank::array::BATCH, 8);
+/// ```
 pub const BATCH: usize = 8;
 
 /// As [`lift`], but the kernel receives [`BATCH`] elements at a time, so that it can run

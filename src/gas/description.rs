@@ -17,6 +17,13 @@ use crate::units::{RANKINE_OFFSET, StandardConditions};
 use ndarray::{ArrayD, ArrayViewD};
 
 /// Where the pseudo-critical properties of a [`Gas`] come from.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::{Gas, PseudoCriticalSource};
+/// let g = Gas::new(0.7).unwrap().with_pseudo_critical(380.0, 670.0).unwrap();
+/// assert!(matches!(g.source(), PseudoCriticalSource::Given(_)));
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum PseudoCriticalSource {
     /// From the gas gravity by a correlation (hydrocarbon part, then impurities).
@@ -27,6 +34,12 @@ pub enum PseudoCriticalSource {
 }
 
 /// How non-hydrocarbons adjust gravity-based pseudo-criticals.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::ImpurityCorrection;
+/// assert_eq!(ImpurityCorrection::default(), ImpurityCorrection::WichertAziz);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum ImpurityCorrection {
     /// The hydrocarbon part's pseudo-criticals from its own gravity, mixed with the
@@ -77,6 +90,13 @@ impl ImpurityCorrection {
 }
 
 /// A gas property that [`Gas::property`] can compute.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::{Gas, GasProperty};
+/// let v = Gas::new(0.7).unwrap().property(GasProperty::Viscosity, 2000.0, 150.0, &Default::default()).unwrap();
+/// assert!(v > 0.0);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum GasProperty {
     /// Z-factor, dimensionless.

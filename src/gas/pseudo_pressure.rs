@@ -21,6 +21,11 @@ const GL_W: [f64; 4] = [
     0.101_228_536_290_376_3,
 ];
 /// Widest pressure sub-interval of the composite quadrature, psia.
+///
+/// # Examples
+/// ```
+/// assert_eq!(stocktank::gas::PSEUDO_PRESSURE_STEP_PSIA, 100.0);
+/// ```
 pub const PSEUDO_PRESSURE_STEP_PSIA: f64 = 100.0;
 
 impl Gas {

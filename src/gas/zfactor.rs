@@ -31,13 +31,29 @@ use std::sync::OnceLock;
 
 /// Relative size of the Newton step at which the Z-factor iteration stops (the remaining
 /// error is of order its square; see the module docs).
+///
+/// # Examples
+/// ```
+/// assert!(stocktank::gas::Z_TOLERANCE * stocktank::gas::Z_TOLERANCE < 1e-15);
+/// ```
 pub const Z_TOLERANCE: f64 = 1e-8;
 /// Relative bracket width at which bisection stops.
 const BRACKET_TOLERANCE: f64 = 1e-14;
 /// Iteration limit of the safeguarded Newton solver (bisection alone needs about 50).
+///
+/// # Examples
+/// ```
+/// assert!(stocktank::gas::dak_solve(5.0, 1.5).unwrap().iterations <= stocktank::gas::MAX_ITERATIONS);
+/// ```
 pub const MAX_ITERATIONS: u32 = 100;
 /// Pseudo-reduced temperature from which both implicit equations are monotone in density
 /// (no loops, a single root) on their bracket.
+///
+/// # Examples
+/// ```
+/// // Below the threshold the solver marches to the lowest-density root.
+/// assert!(stocktank::gas::z_dak(0.9, stocktank::gas::MONOTONE_TPR - 0.05).unwrap() > 0.5);
+/// ```
 pub const MONOTONE_TPR: f64 = 1.05;
 /// Upper end of the DAK reduced-density bracket for Ppr up to [`DAK_FAST_PPR_MAX`].
 const DAK_RHO_HI: f64 = 3.5;
@@ -46,6 +62,12 @@ const DAK_RHO_HI: f64 = 3.5;
 const DAK_FAST_PPR_MAX: f64 = 300.0;
 
 /// How the Z-factor solver ended.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::{dak_solve, Termination};
+/// assert_eq!(dak_solve(1.0, 1.2).unwrap().termination, Termination::Converged);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Termination {
     /// The step fell below [`Z_TOLERANCE`] or the residual was exactly zero.
@@ -57,6 +79,12 @@ pub enum Termination {
 }
 
 /// The result of an implicit Z-factor solve, with a report of how the solver ended.
+///
+/// # Examples
+/// ```
+/// let s = stocktank::gas::dak_solve(2.0, 1.5).unwrap();
+/// assert!((s.z - 0.27 * 2.0 / (s.reduced_density * 1.5)).abs() < 1e-15);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ZSolution {
     /// Z-factor, dimensionless.
@@ -73,6 +101,12 @@ pub struct ZSolution {
 }
 
 /// Z-factor method.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::ZMethod;
+/// assert_eq!(ZMethod::default(), ZMethod::DranchukAbouKassem);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum ZMethod {
     /// Dranchuk–Abou-Kassem (1975), the default.
