@@ -88,7 +88,10 @@ pub fn broadcast_shape(names: &[&str], shapes: &[&[usize]]) -> Result<Vec<usize>
                 let other = owner[od].map(|j| names[j]).unwrap_or("?");
                 return Err(Error::Shape(format!(
                     "`{}` with shape {:?} cannot be broadcast with `{}` with shape {:?}",
-                    names[i], s, other, shapes[owner[od].unwrap_or(0)]
+                    names[i],
+                    s,
+                    other,
+                    shapes[owner[od].unwrap_or(0)]
                 )));
             }
         }
@@ -441,11 +444,17 @@ mod tests {
     fn error_reports_own_index_of_broadcast_argument() {
         let p = arr2(&[[1.0], [-2.0]]).into_dyn();
         let t = arr1(&[1.0, 2.0, 3.0]).into_dyn();
-        let err = lift(["p", "t"], [p.view(), t.view()], OnError::Raise, |[p, t]| {
-            Ok(positive("p", p)? + t)
-        })
+        let err = lift(
+            ["p", "t"],
+            [p.view(), t.view()],
+            OnError::Raise,
+            |[p, t]| Ok(positive("p", p)? + t),
+        )
         .unwrap_err();
-        assert_eq!(err, Error::invalid("p", -2.0, "must be finite and > 0").at_index(&[1, 0]));
+        assert_eq!(
+            err,
+            Error::invalid("p", -2.0, "must be finite and > 0").at_index(&[1, 0])
+        );
     }
 
     #[test]
@@ -465,7 +474,10 @@ mod tests {
         x[[n - 5]] = -1.0;
         x[[n - 2]] = -2.0;
         let err = lift(["x"], [x.view()], OnError::Raise, double_positive).unwrap_err();
-        assert_eq!(err, Error::invalid("x", -1.0, "must be finite and > 0").at_index(&[n - 5]));
+        assert_eq!(
+            err,
+            Error::invalid("x", -1.0, "must be finite and > 0").at_index(&[n - 5])
+        );
     }
 
     #[test]
@@ -473,8 +485,13 @@ mod tests {
         let a = arr2(&[[1.0, 2.0], [3.0, 4.0]]).into_dyn();
         let at = a.t();
         let b = arr1(&[10.0, 20.0]).into_dyn();
-        let out = lift(["a", "b"], [at.view(), b.view()], OnError::Raise, |[a, b]| Ok(a + b))
-            .unwrap();
+        let out = lift(
+            ["a", "b"],
+            [at.view(), b.view()],
+            OnError::Raise,
+            |[a, b]| Ok(a + b),
+        )
+        .unwrap();
         assert_eq!(out, arr2(&[[11.0, 23.0], [12.0, 24.0]]).into_dyn());
     }
 
@@ -486,19 +503,30 @@ mod tests {
             }
         };
         for n in [0, 1, 7, 8, 9, 100, 3 * PARALLEL_THRESHOLD + 5] {
-            let a = Array::linspace(1.0, 2.0, n).into_shape_with_order((n, 1)).unwrap().into_dyn();
+            let a = Array::linspace(1.0, 2.0, n)
+                .into_shape_with_order((n, 1))
+                .unwrap()
+                .into_dyn();
             let b = arr1(&[1.0, f64::NAN, 3.0]).into_dyn();
             let f = |[a, b]: [f64; 2]| Ok(positive("a", a)? * b);
             let x = lift(["a", "b"], [a.view(), b.view()], OnError::Raise, f).unwrap();
             let y = lift_batched(["a", "b"], [a.view(), b.view()], OnError::Raise, batch).unwrap();
             assert_eq!(x.shape(), y.shape());
-            assert!(x.iter().zip(y.iter()).all(|(p, q)| p == q || (p.is_nan() && q.is_nan())));
+            assert!(
+                x.iter()
+                    .zip(y.iter())
+                    .all(|(p, q)| p == q || (p.is_nan() && q.is_nan()))
+            );
         }
         let mut a = Array::linspace(1.0, 2.0, 3 * PARALLEL_THRESHOLD).into_dyn();
         a[[PARALLEL_THRESHOLD + 3]] = -1.0;
         let one = arr1(&[1.0]).into_dyn();
-        let err = lift_batched(["a", "b"], [a.view(), one.view()], OnError::Raise, batch).unwrap_err();
-        assert_eq!(err, Error::invalid("a", -1.0, "must be finite and > 0").at_index(&[PARALLEL_THRESHOLD + 3]));
+        let err =
+            lift_batched(["a", "b"], [a.view(), one.view()], OnError::Raise, batch).unwrap_err();
+        assert_eq!(
+            err,
+            Error::invalid("a", -1.0, "must be finite and > 0").at_index(&[PARALLEL_THRESHOLD + 3])
+        );
         let out = lift_batched(["a", "b"], [a.view(), one.view()], OnError::Coerce, batch).unwrap();
         assert!(out[[PARALLEL_THRESHOLD + 3]].is_nan());
     }
@@ -507,8 +535,13 @@ mod tests {
     fn incompatible_shapes_name_both_arguments() {
         let a = arr1(&[1.0, 2.0]).into_dyn();
         let b = arr1(&[1.0, 2.0, 3.0]).into_dyn();
-        let err = lift(["a", "b"], [a.view(), b.view()], OnError::Raise, |[a, b]| Ok(a + b))
-            .unwrap_err();
+        let err = lift(
+            ["a", "b"],
+            [a.view(), b.view()],
+            OnError::Raise,
+            |[a, b]| Ok(a + b),
+        )
+        .unwrap_err();
         let msg = err.to_string();
         assert!(msg.contains("`a`") && msg.contains("`b`"), "{msg}");
     }
