@@ -41,8 +41,7 @@ impl Gas {
     /// ```
     #[inline]
     pub fn pseudo_pressure_integrand(&self, p_psia: f64, t_f: f64) -> Result<f64> {
-        let z = self.z(p_psia, t_f)?;
-        let mu = self.viscosity(p_psia, t_f)?;
+        let (z, mu) = self.z_and_viscosity(p_psia, t_f)?;
         Ok(2.0 * p_psia / (mu * z))
     }
 
