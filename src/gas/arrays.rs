@@ -8,7 +8,7 @@ use super::properties::{bg, gas_density};
 use super::pseudo_critical::{GravityCorrelation, PseudoCritical, kay, wichert_aziz};
 use super::viscosity::viscosity_lee_gonzalez_eakin;
 use super::zfactor::ZMethod;
-use crate::array::{OnError, lift, lift_multi};
+use crate::array::{OnError, lift, lift_batched, lift_multi};
 use crate::error::Result;
 use crate::units::StandardConditions;
 use ndarray::{ArrayD, ArrayViewD};
@@ -42,9 +42,18 @@ pub fn z_factor_array(
     method: ZMethod,
     on_error: OnError,
 ) -> Result<ArrayD<f64>> {
-    lift(["ppr", "tpr"], [ppr, tpr], on_error, |[p, t]| {
-        method.z(p, t)
-    })
+    match method {
+        // Several Newton solves side by side; identical results to the scalar kernel.
+        ZMethod::DranchukAbouKassem => lift_batched(
+            ["ppr", "tpr"],
+            [ppr, tpr],
+            on_error,
+            super::zfactor::z_dak_batch,
+        ),
+        _ => lift(["ppr", "tpr"], [ppr, tpr], on_error, |[p, t]| {
+            method.z(p, t)
+        }),
+    }
 }
 
 /// Pseudo-reduced compressibility cpr = cg Ppc on arrays (analytic derivative of the EOS).

@@ -25,18 +25,35 @@
 //! from zero density and takes the *lowest-density* root, the gas branch continuous with
 //! the ideal gas.
 
+use crate::array::BATCH;
 use crate::error::{Error, Result, positive};
 use std::sync::OnceLock;
 
 /// Relative size of the Newton step at which the Z-factor iteration stops (the remaining
 /// error is of order its square; see the module docs).
+///
+/// # Examples
+/// ```
+/// assert!(stocktank::gas::Z_TOLERANCE * stocktank::gas::Z_TOLERANCE < 1e-15);
+/// ```
 pub const Z_TOLERANCE: f64 = 1e-8;
 /// Relative bracket width at which bisection stops.
 const BRACKET_TOLERANCE: f64 = 1e-14;
 /// Iteration limit of the safeguarded Newton solver (bisection alone needs about 50).
+///
+/// # Examples
+/// ```
+/// assert!(stocktank::gas::dak_solve(5.0, 1.5).unwrap().iterations <= stocktank::gas::MAX_ITERATIONS);
+/// ```
 pub const MAX_ITERATIONS: u32 = 100;
 /// Pseudo-reduced temperature from which both implicit equations are monotone in density
 /// (no loops, a single root) on their bracket.
+///
+/// # Examples
+/// ```
+/// // Below the threshold the solver marches to the lowest-density root.
+/// assert!(stocktank::gas::z_dak(0.9, stocktank::gas::MONOTONE_TPR - 0.05).unwrap() > 0.5);
+/// ```
 pub const MONOTONE_TPR: f64 = 1.05;
 /// Upper end of the DAK reduced-density bracket for Ppr up to [`DAK_FAST_PPR_MAX`].
 const DAK_RHO_HI: f64 = 3.5;
@@ -45,6 +62,12 @@ const DAK_RHO_HI: f64 = 3.5;
 const DAK_FAST_PPR_MAX: f64 = 300.0;
 
 /// How the Z-factor solver ended.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::{dak_solve, Termination};
+/// assert_eq!(dak_solve(1.0, 1.2).unwrap().termination, Termination::Converged);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Termination {
     /// The step fell below [`Z_TOLERANCE`] or the residual was exactly zero.
@@ -56,6 +79,12 @@ pub enum Termination {
 }
 
 /// The result of an implicit Z-factor solve, with a report of how the solver ended.
+///
+/// # Examples
+/// ```
+/// let s = stocktank::gas::dak_solve(2.0, 1.5).unwrap();
+/// assert!((s.z - 0.27 * 2.0 / (s.reduced_density * 1.5)).abs() < 1e-15);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ZSolution {
     /// Z-factor, dimensionless.
@@ -72,6 +101,12 @@ pub struct ZSolution {
 }
 
 /// Z-factor method.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::ZMethod;
+/// assert_eq!(ZMethod::default(), ZMethod::DranchukAbouKassem);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum ZMethod {
     /// Dranchuk–Abou-Kassem (1975), the default.
@@ -286,6 +321,53 @@ fn lowest_root<F: Fn(f64) -> (f64, f64) + Copy>(
     (f64::NAN, f64::NAN, marched, Termination::NoRoot)
 }
 
+/// exp(x) for x <= 0 (inputs below -700 give exp(-700)), branch-free so that the
+/// compiler can keep it inline and vectorise loops over it.
+///
+/// Cody–Waite reduction x = n ln2 + r with |r| <= ln2/2, then the Taylor polynomial of
+/// degree 12 for e^r evaluated by Estrin's scheme (truncation error r^13/13! < 2e-16
+/// relative) and scaling by 2^n
+/// through the exponent bits. Within 3 ulp of `f64::exp` (unit-tested).
+///
+/// References: Cody, W.J., Waite, W. (1980). Software Manual for the Elementary
+/// Functions. Prentice-Hall.
+#[inline(always)]
+fn exp_nonpositive(x: f64) -> f64 {
+    const LN2_HI: f64 = 6.931_471_803_691_238e-1;
+    const LN2_LO: f64 = 1.908_214_929_270_587_7e-10;
+    // 1.5 * 2^52: adding it rounds to an integer held in the low mantissa bits.
+    const MAGIC: f64 = 6_755_399_441_055_744.0;
+    let x = x.max(-700.0);
+    let t = x * std::f64::consts::LOG2_E + MAGIC;
+    let n = t - MAGIC;
+    let r = (x - n * LN2_HI) - n * LN2_LO;
+    const C: [f64; 13] = [
+        1.0,
+        1.0,
+        1.0 / 2.0,
+        1.0 / 6.0,
+        1.0 / 24.0,
+        1.0 / 120.0,
+        1.0 / 720.0,
+        1.0 / 5_040.0,
+        1.0 / 40_320.0,
+        1.0 / 362_880.0,
+        1.0 / 3_628_800.0,
+        1.0 / 39_916_800.0,
+        1.0 / 479_001_600.0,
+    ];
+    // Estrin's scheme: a short dependency chain instead of Horner's twelve steps.
+    let r2 = r * r;
+    let r4 = r2 * r2;
+    let r8 = r4 * r4;
+    let q0 = (C[0] + C[1] * r) + (C[2] + C[3] * r) * r2;
+    let q1 = (C[4] + C[5] * r) + (C[6] + C[7] * r) * r2;
+    let q2 = (C[8] + C[9] * r) + (C[10] + C[11] * r) * r2;
+    let p = (q0 + q1 * r4) + (q2 + C[12] * r4) * r8;
+    let k = t.to_bits().wrapping_sub(MAGIC.to_bits()) as i64;
+    p * f64::from_bits(((k + 1023) as u64) << 52)
+}
+
 // Dranchuk–Abou-Kassem (1975) coefficients.
 const A1: f64 = 0.3265;
 const A2: f64 = -1.0700;
@@ -328,7 +410,7 @@ impl Dak {
         let r2 = r * r;
         let r3 = r2 * r;
         let r5 = r3 * r2;
-        let e = (-A11 * r2).exp();
+        let e = exp_nonpositive(-A11 * r2);
         let p = r * (self.t + r * (self.c1 + r * self.c2) - self.c3 * r5)
             + self.c4 * r3 * (1.0 + A11 * r2) * e;
         let dp = self.t + r * (2.0 * self.c1 + 3.0 * self.c2 * r) - 6.0 * self.c3 * r5
@@ -346,22 +428,27 @@ fn papay_guess(ppr: f64, tpr: f64) -> f64 {
 }
 
 /// Grid of solved reduced densities for starting guesses: Ppr from 0 to 32 in steps of
-/// 1/8, Tpr from [`MONOTONE_TPR`] to 3.25 in steps of 1/40, stored as f32 (the guess only
-/// needs a few digits).
+/// 1/8; Tpr from [`MONOTONE_TPR`] to about 3.2, uniform in sqrt(Tpr - 1.05) (steps of 1/60);
+/// stored as f32 (the guess only needs a few digits).
 struct GuessTable {
     data: Box<[f32]>,
 }
 
-const TABLE_NP: usize = 257;
-const TABLE_NT: usize = 89;
-const TABLE_INV_DP: f64 = 8.0;
-const TABLE_INV_DT: f64 = 40.0;
+const TABLE_NP: usize = 513;
+const TABLE_NT: usize = 133;
+const TABLE_INV_DP: f64 = 16.0;
+/// Rows are uniform in w = sqrt(Tpr - 1.05), dense where Z bends most (low Tpr).
+const TABLE_INV_DT: f64 = 90.0;
+/// Tpr - 1.05 at the last row: ((TABLE_NT - 1) / TABLE_INV_DT)^2.
+const TABLE_DT_MAX: f64 =
+    ((TABLE_NT - 1) as f64 / TABLE_INV_DT) * ((TABLE_NT - 1) as f64 / TABLE_INV_DT);
 
 impl GuessTable {
     fn build(solve: impl Fn(f64, f64) -> f64) -> Self {
         let mut data = vec![0.0f32; TABLE_NP * TABLE_NT];
         for j in 0..TABLE_NT {
-            let tpr = MONOTONE_TPR + j as f64 / TABLE_INV_DT;
+            let w = j as f64 / TABLE_INV_DT;
+            let tpr = MONOTONE_TPR + w * w;
             for i in 1..TABLE_NP {
                 data[j * TABLE_NP + i] = solve(i as f64 / TABLE_INV_DP, tpr) as f32;
             }
@@ -375,8 +462,13 @@ impl GuessTable {
     #[inline(always)]
     fn guess(&self, ppr: f64, tpr: f64) -> Option<f64> {
         let u = ppr * TABLE_INV_DP;
-        let v = (tpr - MONOTONE_TPR) * TABLE_INV_DT;
-        if !(u < (TABLE_NP - 1) as f64 && v >= 0.0 && v < (TABLE_NT - 1) as f64) {
+        let dt = tpr - MONOTONE_TPR;
+        let in_grid = u < (TABLE_NP - 1) as f64 && (0.0..TABLE_DT_MAX).contains(&dt);
+        if !in_grid {
+            return None;
+        }
+        let v = dt.sqrt() * TABLE_INV_DT;
+        if v >= (TABLE_NT - 1) as f64 {
             return None;
         }
         let (i, j) = (u as usize, v as usize);
@@ -454,23 +546,130 @@ pub fn dak_solve(ppr: f64, tpr: f64) -> Result<ZSolution> {
     check_reduced(ppr, tpr)?;
     let dak = Dak::new(tpr);
     let target = 0.27 * ppr;
+    let guess = dak_table().guess(ppr, tpr);
+    if let Some(x0) = guess {
+        let ([r], [dp], [ok]) = dak_two_steps(&[tpr], &[target], &[x0]);
+        if ok {
+            return Ok(dak_solution(ppr, tpr, r, dp, 2, Termination::Converged));
+        }
+    }
     let f = |r: f64| dak.eval(r);
     let (r, dp, it, term) = if tpr >= MONOTONE_TPR && ppr <= DAK_FAST_PPR_MAX {
-        let x0 = match dak_table().guess(ppr, tpr) {
-            Some(x) => x,
-            None => 0.27 * papay_guess(ppr, tpr),
-        };
+        let x0 = guess.unwrap_or_else(|| 0.27 * papay_guess(ppr, tpr));
         rtsafe(f, target, 0.0, DAK_RHO_HI, x0)
     } else {
         lowest_root(f, target, 0.02, 50.0)
     };
-    Ok(ZSolution {
-        z: target / (r * tpr),
+    Ok(dak_solution(ppr, tpr, r, dp, it, term))
+}
+
+#[inline(always)]
+fn dak_solution(ppr: f64, tpr: f64, r: f64, dp: f64, iterations: u32, t: Termination) -> ZSolution {
+    ZSolution {
+        z: 0.27 * ppr / (r * tpr),
         reduced_density: r,
         cpr: 0.27 / (r * dp),
-        iterations: it,
-        termination: term,
-    })
+        iterations,
+        termination: t,
+    }
+}
+
+/// The fast path of the DAK solve for `L` points side by side: two plain Newton steps
+/// from the table guesses, then the convergence test of the safeguarded solver (the second
+/// step at most [`Z_TOLERANCE`] relative, both iterates inside the bracket, P increasing).
+/// Written as element-wise loops over lanes without branches, so that the compiler can
+/// vectorise them; each lane does exactly the operations of the one-lane call, so the
+/// scalar kernel (`L = 1`) and the batch kernel give identical results.
+/// Returns (rho_r, dP/drho at the second iterate, converged) per lane.
+#[inline(always)]
+fn dak_two_steps<const L: usize>(
+    tpr: &[f64; L],
+    target: &[f64; L],
+    x0: &[f64; L],
+) -> ([f64; L], [f64; L], [bool; L]) {
+    let mut c1 = [0.0; L];
+    let mut c2 = [0.0; L];
+    let mut c3 = [0.0; L];
+    let mut c4 = [0.0; L];
+    for l in 0..L {
+        let t = tpr[l];
+        let it = 1.0 / t;
+        let it2 = it * it;
+        c1[l] = A1 * t + A2 + A3 * it2 + A4 * it2 * it + A5 * it2 * it2;
+        c2[l] = A6 * t + A7 + A8 * it;
+        c3[l] = A9 * (A7 + A8 * it);
+        c4[l] = A10 * it2;
+    }
+    let mut x = *x0;
+    let mut dx = [0.0; L];
+    let mut dp = [0.0; L];
+    let mut ok = [true; L];
+    for _ in 0..2 {
+        for l in 0..L {
+            let r = x[l];
+            let r2 = r * r;
+            let r3 = r2 * r;
+            let r5 = r3 * r2;
+            let e = exp_nonpositive(-A11 * r2);
+            let p = r * (tpr[l] + r * (c1[l] + r * c2[l]) - c3[l] * r5)
+                + c4[l] * r3 * (1.0 + A11 * r2) * e;
+            let d = tpr[l] + r * (2.0 * c1[l] + 3.0 * c2[l] * r) - 6.0 * c3[l] * r5
+                + c4[l] * e * r2 * (3.0 + 3.0 * A11 * r2 - 2.0 * A11 * A11 * r2 * r2);
+            dx[l] = (p - target[l]) / d;
+            dp[l] = d;
+            x[l] = r - dx[l];
+            ok[l] &= (d > 0.0) & (x[l] > 0.0) & (x[l] < DAK_RHO_HI);
+        }
+    }
+    for l in 0..L {
+        ok[l] &= dx[l].abs() <= Z_TOLERANCE * x[l];
+    }
+    (x, dp, ok)
+}
+
+/// Z by Dranchuk–Abou-Kassem for [`crate::array::BATCH`] points at once: the batch kernel
+/// of [`crate::gas::z_factor_array`]. Every element gives exactly the result of [`z_dak`]
+/// (the same operations, run side by side); points off the fast path go through
+/// [`z_dak`] itself.
+///
+/// # Arguments
+/// * `x` - (Ppr, Tpr) pairs.
+/// * `out` - the Z-factor or error of each pair.
+///
+/// # Examples
+/// ```
+/// use stocktank::array::BATCH;
+/// let x = [[2.0, 1.5]; BATCH];
+/// let mut out: [stocktank::Result<f64>; BATCH] = std::array::from_fn(|_| Ok(0.0));
+/// stocktank::gas::z_dak_batch(&x, &mut out);
+/// assert_eq!(*out[3].as_ref().unwrap(), stocktank::gas::z_dak(2.0, 1.5).unwrap());
+/// ```
+///
+/// # References
+/// Dranchuk, P.M., Abou-Kassem, J.H. (1975). J. Can. Pet. Technol. 14(3), 34–36.
+pub fn z_dak_batch(x: &[[f64; 2]; BATCH], out: &mut [Result<f64>; BATCH]) {
+    let table = dak_table();
+    let mut ppr = [1.0; BATCH];
+    let mut tpr = [2.0; BATCH];
+    let mut x0 = [0.5; BATCH];
+    let mut fast = [false; BATCH];
+    for l in 0..BATCH {
+        let [p, t] = x[l];
+        if p > 0.0 && p.is_finite() && t.is_finite() {
+            if let Some(g) = table.guess(p, t) {
+                (ppr[l], tpr[l], x0[l], fast[l]) = (p, t, g, true);
+            }
+        }
+    }
+    let target: [f64; BATCH] = std::array::from_fn(|l| 0.27 * ppr[l]);
+    let (r, _, ok) = dak_two_steps(&tpr, &target, &x0);
+    for l in 0..BATCH {
+        out[l] = if fast[l] && ok[l] {
+            Ok(0.27 * ppr[l] / (r[l] * tpr[l]))
+        } else {
+            z_dak(x[l][0], x[l][1])
+        };
+    }
 }
 
 /// Z-factor by Dranchuk–Abou-Kassem (1975); see [`dak_solve`] for the formula.
@@ -685,6 +884,20 @@ mod tests {
             }
             assert!(d.eval(DAK_RHO_HI).0 > 0.27 * DAK_FAST_PPR_MAX);
         }
+    }
+
+    #[test]
+    fn fast_exp_matches_std() {
+        let mut worst: f64 = 0.0;
+        for i in 0..=200_000 {
+            let x = -30.0 * i as f64 / 200_000.0;
+            let a = exp_nonpositive(x);
+            let b = x.exp();
+            worst = worst.max(((a - b) / b).abs());
+        }
+        assert!(worst < 6.7e-16, "worst relative error {worst}"); // 3 ulp
+        assert_eq!(exp_nonpositive(0.0), 1.0);
+        assert!(exp_nonpositive(-1e6) > 0.0);
     }
 
     #[test]

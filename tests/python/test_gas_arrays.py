@@ -179,6 +179,7 @@ def test_z_positive(sg, p, t, m):
 @given(gravity, temperature, methods, hs.lists(pressure, min_size=2, max_size=20))
 def test_bg_falls_as_pressure_rises(sg, t, m, ps):
     p = np.unique(np.array(ps))
+    p = p[np.concatenate([[True], np.diff(p) > 1e-6 * p[1:]])]  # beyond rounding noise
     bg = st.Gas(sg, z_method=m).bg(p, t)
     assert np.all(np.diff(bg) < 0.0)
 
