@@ -155,7 +155,9 @@ impl PvtTable {
         let outs = call_multi(py, [&p], move |[p]| {
             lift_multi(["p"], [p], oe, |[p]| {
                 let q = t.at(p).map_err(|e| match e {
-                    Error::OutOfRange(_) => Error::invalid("p", p, "lies outside the PVT table's pressure range"),
+                    Error::OutOfRange(_) => {
+                        Error::invalid("p", p, "lies outside the PVT table's pressure range")
+                    }
                     o => o,
                 })?;
                 Ok([q.bo, q.rs, q.bg, q.bw, q.mu_o, q.mu_g])
@@ -980,7 +982,10 @@ fn history_match_batch<'py>(
             None => Ok(None),
         }
     };
+    // Convert every history; a bad one fails the call ("raise") or becomes its exception
+    // in the output list ("coerce").
     let mut inputs = Vec::with_capacity(n);
+    let mut slots: Vec<Result<usize, PyErr>> = Vec::with_capacity(n);
     for (i, d) in histories.iter().enumerate() {
         let req = |k: &'static str| -> PyResult<In<'py>> {
             get(d, k)?.ok_or_else(|| {
@@ -992,24 +997,32 @@ fn history_match_batch<'py>(
                 .into()
             })
         };
-        let hs = hist(
-            &req("t_days")?,
-            &req("p")?,
-            &req("np_stb")?,
-            &req("gp_scf")?,
-            &get(d, "wp_stb")?,
-            &get(d, "wi_stb")?,
-            &get(d, "gi_scf")?,
-            p_initial[i],
-            swi[i],
-            cw[i],
-            cf[i],
-        )?;
-        inputs.push(mb::HistoryMatchInput {
-            pvt: pvts[i].inner.clone(),
-            history: hs.h,
-            reservoir: hs.r,
-        });
+        let conv = (|| -> PyResult<Hist> {
+            hist(
+                &req("t_days")?,
+                &req("p")?,
+                &req("np_stb")?,
+                &req("gp_scf")?,
+                &get(d, "wp_stb")?,
+                &get(d, "wi_stb")?,
+                &get(d, "gi_scf")?,
+                p_initial[i],
+                swi[i],
+                cw[i],
+                cf[i],
+            )
+        })();
+        match conv {
+            Ok(hs) => {
+                slots.push(Ok(inputs.len()));
+                inputs.push(mb::HistoryMatchInput {
+                    pvt: pvts[i].inner.clone(),
+                    history: hs.h,
+                    reservoir: hs.r,
+                });
+            }
+            Err(e) => slots.push(Err(e)),
+        }
     }
     let opts = match_options(
         m,
@@ -1021,21 +1034,28 @@ fn history_match_batch<'py>(
         tolerance,
         confidence,
     )?;
-    let results = py.detach(|| mb::history_match_batch(&inputs, &opts));
+    let mut results: Vec<Option<crate::Result<mb::HistoryMatch>>> = py
+        .detach(|| mb::history_match_batch(&inputs, &opts))
+        .into_iter()
+        .map(Some)
+        .collect();
     let out = PyList::empty(py);
-    for (i, r) in results.into_iter().enumerate() {
+    for (i, slot) in slots.into_iter().enumerate() {
+        let r: Result<mb::HistoryMatch, PyErr> = match slot {
+            Ok(k) => results[k]
+                .take()
+                .expect("each result taken once")
+                .map_err(PyErr::from),
+            Err(e) => Err(e),
+        };
         match r {
             Ok(f) => out.append(match_dict(py, f)?)?,
-            Err(e) => match oe {
+            Err(err) => match oe {
                 crate::array::OnError::Raise => {
-                    let err: PyErr = e.into();
                     let msg = format!("reservoir {i}: {}", err.value(py));
                     return Err(PyErr::from_type(err.get_type(py), msg));
                 }
-                crate::array::OnError::Coerce => {
-                    let err: PyErr = e.into();
-                    out.append(err.value(py))?
-                }
+                crate::array::OnError::Coerce => out.append(err.value(py))?,
             },
         }
     }
