@@ -528,38 +528,77 @@ impl Model<'_> {
                 let efw = init.bo * ce * (pi - p);
                 Ok(f - n * (eo + m * eg + (1.0 + m) * efw) - c * (a + b * p))
             };
-            let (mut x0, mut x1) = (p_lo, pi);
-            let (mut g0, mut g1) = (g(x0)?, g(x1)?);
-            let p = if g1 <= 0.0 {
-                pi
-            } else if g0 >= 0.0 {
-                p_lo
+            // Bracket the root nearest the previous row's pressure (the balance can have
+            // more than one root in [p_lo, pi]; the physical one continues the history),
+            // stepping outward by 1% of pi, then Illinois false position.
+            let p_prev = out.last().copied().unwrap_or(pi).clamp(p_lo, pi);
+            let g_prev = g(p_prev)?;
+            let step = 0.01 * pi;
+            let mut bracket = None;
+            if g_prev == 0.0 {
+                bracket = Some((p_prev, 0.0, p_prev, 0.0));
             } else {
-                let mut side = 0;
-                let mut x = x1;
-                for _ in 0..200 {
-                    x = (x0 * g1 - x1 * g0) / (g1 - g0);
-                    let gx = g(x)?;
-                    if (x1 - x0).abs() <= 1e-10 * pi || gx == 0.0 {
+                let mut last = [(p_prev, g_prev), (p_prev, g_prev)];
+                'search: for k in 1..=200 {
+                    let mut moved = false;
+                    for (d, dir) in [-1.0f64, 1.0].iter().enumerate() {
+                        let x = (p_prev + dir * k as f64 * step).clamp(p_lo, pi);
+                        if x == last[d].0 {
+                            continue;
+                        }
+                        moved = true;
+                        let gx = g(x)?;
+                        if gx == 0.0 || gx.signum() != last[d].1.signum() {
+                            bracket = Some((last[d].0, last[d].1, x, gx));
+                            break 'search;
+                        }
+                        last[d] = (x, gx);
+                    }
+                    if !moved {
                         break;
                     }
-                    if gx > 0.0 {
-                        x1 = x;
-                        g1 = gx;
-                        if side == 1 {
-                            g0 *= 0.5;
-                        }
-                        side = 1;
+                }
+            }
+            let p = match bracket {
+                None => {
+                    // No sign change anywhere: the closest approach at a bound.
+                    if g(p_lo)?.abs() < g(pi)?.abs() {
+                        p_lo
                     } else {
-                        x0 = x;
-                        g0 = gx;
-                        if side == -1 {
-                            g1 *= 0.5;
-                        }
-                        side = -1;
+                        pi
                     }
                 }
-                x
+                Some((mut xa, mut fa, mut xb, mut fb)) => {
+                    let mut x = if fa == 0.0 { xa } else { xb };
+                    if fa != 0.0 && fb != 0.0 {
+                        let mut side = 0;
+                        let mut x_old = f64::NAN;
+                        for _ in 0..200 {
+                            x = (xa * fb - xb * fa) / (fb - fa);
+                            let fx = g(x)?;
+                            if fx == 0.0 || (x - x_old).abs() <= 1e-10 * pi {
+                                break;
+                            }
+                            x_old = x;
+                            if fx.signum() == fb.signum() {
+                                xb = x;
+                                fb = fx;
+                                if side == -1 {
+                                    fa *= 0.5;
+                                }
+                                side = -1;
+                            } else {
+                                xa = x;
+                                fa = fx;
+                                if side == 1 {
+                                    fb *= 0.5;
+                                }
+                                side = 1;
+                            }
+                        }
+                    }
+                    x
+                }
             };
             st.push(h.t_days[i], p, a + b * p);
             out.push(p);
@@ -635,20 +674,64 @@ fn withdrawal_solution(
             .map(|j| f[j] - (0..k).map(|c| coef_out[c] * cols[c][j]).sum::<f64>())
             .collect())
     };
-    let us0 = match &lay.aquifer {
+    let mut us0 = match &lay.aquifer {
         Some(m) => lay.shape_get(m),
         None => vec![],
     };
     let bounds = lay.shape_bounds();
+    // Coarse scan of the first shape parameter (three points per decade across a wide
+    // range, plus the user's start) for the lowest imbalance with physical coefficients
+    // (N > 0, m >= 0, C >= 0): the least-squares surface in the time constant has more than
+    // one valley, and a poor start can end in one with a negative N.
+    if !us0.is_empty() {
+        let (lo, hi) = match lay.shape[0] {
+            MatchParameter::TauDays => (1.0f64.ln(), 1e5f64.ln()),
+            MatchParameter::TdPerDay => (1e-4f64.ln(), 1e2f64.ln()),
+            _ => (bounds[0].0, bounds[0].1),
+        };
+        let steps = ((hi - lo) / (std::f64::consts::LN_10 / 3.0)).ceil() as usize;
+        let mut best: Option<(f64, f64)> = None;
+        let mut coef = vec![0.0; k];
+        for j in 0..=steps + 1 {
+            let v = if j == steps + 1 {
+                us0[0]
+            } else {
+                lo + (hi - lo) * j as f64 / steps as f64
+            };
+            let mut u = us0.clone();
+            u[0] = v;
+            let Ok(r) = project(model, &u, &mut coef) else {
+                continue;
+            };
+            let physical = coef[0] > 0.0
+                && (!lay.fit_m || coef[1] >= 0.0)
+                && (lay.aquifer.is_none() || coef[k - 1] >= 0.0);
+            let cost = ssq(&r);
+            if physical && best.is_none_or(|(c, _)| cost < c) {
+                best = Some((cost, v));
+            }
+        }
+        if let Some((_, v)) = best {
+            us0[0] = v;
+        }
+    }
     let mut scratch = vec![0.0; k];
-    let (us, _, iterations, status) = levenberg_marquardt(
+    let (mut us, _, iterations, status) = levenberg_marquardt(
         |u| project(model, u, &mut scratch),
-        us0,
+        us0.clone(),
         &bounds,
         options.max_iterations,
         options.tolerance,
     )?;
     project(model, &us, &mut last_coef)?;
+    let physical = |c: &[f64]| {
+        c[0] > 0.0 && (!lay.fit_m || c[1] >= 0.0) && (lay.aquifer.is_none() || c[k - 1] >= 0.0)
+    };
+    if !physical(&last_coef) && !us.is_empty() {
+        // The unconstrained optimum is unphysical: keep the best physical scan point.
+        us = us0;
+        project(model, &us, &mut last_coef)?;
+    }
     // Back to the full layout, kept inside the bounds.
     let n = last_coef[0];
     if n.is_nan() || n <= 0.0 {
@@ -782,7 +865,38 @@ pub fn history_match(
         table: None,
         evaluations: 0,
     };
-    let (mut u, mut iterations, mut status) = withdrawal_solution(&mut model, &lay, options)?;
+    let start = withdrawal_solution(&mut model, &lay, options);
+    let (mut u, mut iterations, mut status) = match start {
+        Ok(s) => s,
+        // The pressure match can still start from a plain guess when the withdrawal
+        // solution is unphysical (noisy early rows can drive N or C negative there).
+        Err(Error::Singular { .. }) if options.objective == Objective::Pressure => {
+            let t = &model.terms;
+            let m0 = lay.m_fixed.max(if lay.fit_m { 0.1 } else { 0.0 });
+            let mut ratios: Vec<f64> = rows
+                .iter()
+                .map(|&i| t.f[i] / (t.eo[i] + m0 * t.eg[i] + (1.0 + m0) * t.efw[i]))
+                .filter(|v| v.is_finite() && *v > 0.0)
+                .collect();
+            if ratios.is_empty() {
+                return Err(Error::Singular {
+                    what: "history match",
+                    detail: "no row has a positive F/Et to start from; the data do not support this model".into(),
+                });
+            }
+            ratios.sort_by(f64::total_cmp);
+            let mut u = vec![ratios[0].ln()];
+            if lay.fit_m {
+                u.push(m0);
+            }
+            if let Some(a) = &lay.aquifer {
+                u.push(1.0f64.ln());
+                u.extend(lay.shape_get(a));
+            }
+            (u, 0, LmStatus::MaxIterations)
+        }
+        Err(e) => return Err(e),
+    };
     let bounds = lay.bounds();
     for (v, b) in u.iter_mut().zip(&bounds) {
         *v = v.clamp(b.0, b.1);
