@@ -161,6 +161,11 @@ pub(crate) struct InfluxStepper<'a> {
     we: Vec<f64>,
     pa: f64,
     started: bool,
+    /// Equal time steps so far (then the superposition lags are multiples of `dt` and
+    /// WD is evaluated once per multiple, cached in `w_lag`).
+    uniform: bool,
+    dt: f64,
+    w_lag: Vec<f64>,
 }
 
 impl<'a> InfluxStepper<'a> {
@@ -179,7 +184,19 @@ impl<'a> InfluxStepper<'a> {
             we: Vec::with_capacity(n + 1),
             pa: p_initial,
             started: false,
+            uniform: true,
+            dt: f64::NAN,
+            w_lag: Vec::new(),
         }
+    }
+
+    /// WD at lag d * dt (d >= 1), cached.
+    fn w_at(&mut self, tab: &DimensionlessTable, td_per_day: f64, d: usize) -> f64 {
+        while self.w_lag.len() <= d {
+            let j = self.w_lag.len();
+            self.w_lag.push(tab.eval(td_per_day * j as f64 * self.dt));
+        }
+        self.w_lag[d]
     }
 
     /// (a, b) such that the unit influx at time `t` is a + b p.
@@ -215,7 +232,17 @@ impl<'a> InfluxStepper<'a> {
                 // We_k = (pi - p_0) WD(a t_k) + sum_j dp_j WD(a (t_k - t_j)),
                 // dp_0 = (p_0 - p_1)/2, dp_j = (p_{j-1} - p_{j+1})/2 (van Everdingen & Hurst
                 // 1949; Dake 1978, section 9.6). The last step dp_{k-1} holds p_k.
-                let mut a = (pi - self.p[0]) * tab.eval(td_per_day * t);
+                let gap = pi - self.p[0];
+                let mut a = if gap != 0.0 {
+                    gap * tab.eval(td_per_day * t)
+                } else {
+                    0.0
+                };
+                let uniform =
+                    self.uniform && k >= 2 && (dt - self.dt).abs() <= 1e-9 * self.dt || k == 1;
+                if k == 1 {
+                    self.dt = dt;
+                }
                 for j in 0..k.saturating_sub(1) {
                     let dpj = if j == 0 {
                         0.5 * (self.p[0] - self.p[1])
@@ -223,10 +250,19 @@ impl<'a> InfluxStepper<'a> {
                         0.5 * (self.p[j - 1] - self.p[j + 1])
                     };
                     if dpj != 0.0 {
-                        a += dpj * tab.eval(td_per_day * (t - self.t[j]));
+                        let w = if uniform {
+                            self.w_at(tab, td_per_day, k - j)
+                        } else {
+                            tab.eval(td_per_day * (t - self.t[j]))
+                        };
+                        a += dpj * w;
                     }
                 }
-                let w = tab.eval(td_per_day * dt);
+                let w = if uniform {
+                    self.w_at(tab, td_per_day, 1)
+                } else {
+                    tab.eval(td_per_day * dt)
+                };
                 let prev = if k == 1 { self.p[0] } else { self.p[k - 2] };
                 (a + 0.5 * prev * w, -0.5 * w)
             }
@@ -245,6 +281,14 @@ impl<'a> InfluxStepper<'a> {
 
     /// Record the row's time, pressure and unit influx.
     pub(crate) fn push(&mut self, t: f64, p: f64, we: f64) {
+        if let Some(&tp) = self.t.last() {
+            let dt = t - tp;
+            if self.dt.is_nan() {
+                self.dt = dt;
+            } else if (dt - self.dt).abs() > 1e-9 * self.dt {
+                self.uniform = false;
+            }
+        }
         self.t.push(t);
         self.p.push(p);
         self.we.push(we);
@@ -668,6 +712,23 @@ impl DimensionlessTable {
         })
     }
 
+    /// A table, from a process-wide copy for the infinite aquifer (built once).
+    pub(crate) fn shared(red: f64, kind: Kind) -> Result<Self> {
+        if red.is_infinite() && red > 0.0 {
+            let cell = match kind {
+                Kind::Influx => &INFINITE_INFLUX,
+                Kind::Pressure => &INFINITE_PRESSURE,
+            };
+            if let Some(t) = cell.get() {
+                return Ok(t.clone());
+            }
+            let t = Self::new(red, kind)?;
+            let _ = cell.set(t.clone());
+            return Ok(t);
+        }
+        Self::new(red, kind)
+    }
+
     /// Value and derivative d y / d tD.
     pub(crate) fn eval_with_derivative(&self, td: f64) -> (f64, f64) {
         if td <= 0.0 {
@@ -727,10 +788,13 @@ fn cached(
         None => true,
     };
     if fresh {
-        *cache = Some(DimensionlessTable::new(red, kind)?);
+        *cache = Some(DimensionlessTable::shared(red, kind)?);
     }
     Ok(cache.as_ref().expect("just filled"))
 }
+
+static INFINITE_INFLUX: std::sync::OnceLock<DimensionlessTable> = std::sync::OnceLock::new();
+static INFINITE_PRESSURE: std::sync::OnceLock<DimensionlessTable> = std::sync::OnceLock::new();
 
 #[cfg(test)]
 mod tests {
@@ -741,6 +805,29 @@ mod tests {
         // 0.001127 and 0.006328 (common practice, no source).
         assert!((DARCY_FIELD - 0.001127).abs() < 5e-7);
         assert!((TD_FIELD - 0.006328).abs() < 5e-7);
+    }
+
+    #[test]
+    fn uniform_step_cache_matches_direct_superposition() {
+        // Equal steps use the cached WD per lag; a 1e-6-day jitter takes the direct path.
+        let t: Vec<f64> = (0..40).map(|k| 30.0 * k as f64).collect();
+        let tj: Vec<f64> = t
+            .iter()
+            .enumerate()
+            .map(|(k, x)| x + if k % 3 == 1 { 1e-6 } else { 0.0 })
+            .collect();
+        let p: Vec<f64> = (0..40)
+            .map(|k| 3000.0 - 25.0 * k as f64 + 3.0 * (k as f64).sin())
+            .collect();
+        let m = AquiferModel::VanEverdingenHurst {
+            td_per_day: 0.7,
+            red: 8.0,
+        };
+        let a = m.unit_influx(&t, &p, 3000.0).unwrap();
+        let b = m.unit_influx(&tj, &p, 3000.0).unwrap();
+        for k in 1..40 {
+            assert!((a[k] - b[k]).abs() <= 1e-6 * a[k], "{k}: {} {}", a[k], b[k]);
+        }
     }
 
     #[test]

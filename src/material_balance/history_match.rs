@@ -468,7 +468,7 @@ impl Model<'_> {
             None => true,
         };
         if fresh {
-            self.table = Some(DimensionlessTable::new(red, kind)?);
+            self.table = Some(DimensionlessTable::shared(red, kind)?);
         }
         Ok(self.table.as_ref())
     }
