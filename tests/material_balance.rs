@@ -571,7 +571,6 @@ fn muskat_forecast_closes_the_material_balance() {
     }
     // GOR starts at Rsi and rises once gas exceeds its critical saturation.
     assert!((f.gor[0] - qb.rs).abs() < 1e-9);
-    println!("{:?}", f.gor);
     assert!(f.gor.iter().cloned().fold(0.0, f64::max) > 2.0 * qb.rs);
     // RF = Np/N (common practice, no source): with N = 1,000,000 STB and a recovery of 37%
     // the arithmetic gives 370,000 STB.

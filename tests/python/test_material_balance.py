@@ -256,6 +256,9 @@ def test_history_match_pressure_objective_with_noise():
     assert noisy["rms"] < 5.0  # psi: the model matches to the noise level
     df = mb.to_frame(noisy)
     assert {"p_model", "residuals", "we"} <= set(df.columns)
+    pd = pytest.importorskip("pandas")
+    again = mb.history_match(pvt, **mb.history_from_frame(pd.DataFrame(h)), **RES, aquifer=start)
+    assert again["n"] == noisy["n"]
 
 
 def test_history_match_batch_parallel_and_gil_released():
