@@ -130,7 +130,7 @@ impl Quantity {
             Quantity::Compressibility => "1/psi, 1/Pa, 1/kPa, 1/MPa, 1/bar",
             Quantity::Area => "acre, ft2, m2, ha, km2",
             Quantity::Length => "ft, m, in",
-            Quantity::Permeability => "md, D, m2, um2",
+            Quantity::Permeability => "md, D, um2, m2",
         }
     }
 }
@@ -249,7 +249,7 @@ pub fn unit(arg: &'static str, name: &str) -> Result<UnitMap> {
         "1/bar" => lin(Compressibility, 1.0 / PA_PER_BAR),
         "1/psi" => lin(Compressibility, 1.0 / PA_PER_PSI),
         // Area: m2.
-        "m2" => lin(Area, 1.0),
+        "m2" => lin(Area, 1.0), // also the SI unit of permeability
         "ha" => lin(Area, 1.0e4),
         "km2" => lin(Area, 1.0e6),
         "ft2" => lin(Area, ft2),
@@ -294,7 +294,15 @@ cp, mPa.s, Pa.s, 1/psi, 1/Pa, 1/kPa, 1/MPa, 1/bar, acre, ft2, m2, ha, km2, ft, m
 pub fn factor(from_unit: &str, to_unit: &str) -> Result<(f64, f64)> {
     let a = unit("from_unit", from_unit)?;
     let b = unit("to_unit", to_unit)?;
-    if a.quantity != b.quantity {
+    // Permeability and area share the dimension m2 (md converts to m2 or um2).
+    let dim = |q: Quantity| {
+        if q == Quantity::Permeability {
+            Quantity::Area
+        } else {
+            q
+        }
+    };
+    if dim(a.quantity) != dim(b.quantity) {
         return Err(Error::InvalidOption {
             arg: "to_unit",
             value: format!(

@@ -154,7 +154,7 @@ impl VolumetricInputs {
                     "distribution support must be >= 0 (truncate the distribution at 0)",
                 ),
                 Input::Fvf => (
-                    lo > 0.0,
+                    lo > 0.0 || (lo == 0.0 && matches!(d, Distribution::Lognormal { .. })),
                     "distribution support must be > 0 (truncate the distribution above 0)",
                 ),
                 _ => (
