@@ -165,7 +165,7 @@ def probabilistic_in_place(
     fvf: Union[Distribution, float],
     net_to_gross: Union[Distribution, float, None] = None,
     recovery_factor: Union[Distribution, float, None] = None,
-    correlation: Union[Dict[Tuple[str, str, None], float]] = None,
+    correlation: Union[Dict[Tuple[str, str], float], None] = None,
     trials: int = 100000,
     seed: int = 0,
 ) -> Dict[str, Any]: ...
