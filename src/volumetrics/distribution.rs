@@ -99,13 +99,6 @@ impl Rng {
     pub fn uniform(&mut self) -> f64 {
         ((self.next_u64() >> 11) as f64 + 0.5) * (1.0 / 9_007_199_254_740_992.0)
     }
-
-    /// A uniform integer in `0..n` (n > 0), by Lemire's multiply-shift (bias below 2^-32 for
-    /// the sizes used here).
-    #[inline]
-    pub(crate) fn below(&mut self, n: usize) -> usize {
-        ((self.next_u64() as u128 * n as u128) >> 64) as usize
-    }
 }
 
 /// Standard normal distribution function Phi(x).

@@ -326,11 +326,41 @@ impl Correlation {
     }
 }
 
-/// Order-preserving integer key of an f64 (total order; NaN sorts last).
+/// Order-preserving 64-bit key of an f64 (a bijection; NaN sorts last).
 #[inline]
-fn key(x: f64) -> u64 {
+fn key64(x: f64) -> u64 {
     let b = x.to_bits();
     if b >> 63 == 1 { !b } else { b | (1 << 63) }
+}
+
+#[inline]
+fn from_key64(k: u64) -> f64 {
+    f64::from_bits(if k >> 63 == 1 { k & !(1 << 63) } else { !k })
+}
+
+/// Order-preserving 32-bit key of an f64 through its nearest f32 (monotone: a <= b gives
+/// key(a) <= key(b); values closer than f32 resolution share a key and are ordered by index).
+#[inline]
+fn key32(x: f64) -> u32 {
+    let b = (x as f32).to_bits();
+    if b >> 31 == 1 { !b } else { b | (1 << 31) }
+}
+
+/// Argsort of 32-bit keys (ties by index): one sort of packed `key << 32 | index` words.
+fn key_order(keys: impl Iterator<Item = u32>) -> Vec<u32> {
+    let mut packed: Vec<u64> = keys
+        .enumerate()
+        .map(|(i, k)| ((k as u64) << 32) | i as u64)
+        .collect();
+    packed.sort_unstable();
+    packed.into_iter().map(|v| v as u32).collect()
+}
+
+/// Sort f64 values (no NaN) exactly, through their order-preserving integer keys.
+fn sort_values(x: &[f64]) -> Vec<f64> {
+    let mut k: Vec<u64> = x.iter().map(|&v| key64(v)).collect();
+    k.sort_unstable();
+    k.into_iter().map(from_key64).collect()
 }
 
 /// Re-pair the columns in place so that their rank correlation approaches `target`
@@ -390,13 +420,12 @@ pub fn iman_conover(columns: &mut [Vec<f64>], target: &Correlation, seed: u64) -
     let mut scores: Vec<Vec<f64>> = (0..k)
         .into_par_iter()
         .map(|j| {
-            let mut s = base.clone();
+            // A uniformly random permutation: the order of random 32-bit keys.
             let mut rng = Rng::new(seed, 0x1C_0000 + j as u64, 0);
-            for i in (1..n).rev() {
-                let r = rng.below(i + 1);
-                s.swap(i, r);
-            }
-            s
+            key_order((0..n).map(|_| (rng.next_u64() >> 32) as u32))
+                .into_iter()
+                .map(|i| base[i as usize])
+                .collect::<Vec<f64>>()
         })
         .collect();
     drop(base);
@@ -460,18 +489,11 @@ pub fn iman_conover(columns: &mut [Vec<f64>], target: &Correlation, seed: u64) -
         .par_iter_mut()
         .zip(scores.par_iter())
         .for_each(|(col, s)| {
-            let mut order: Vec<(u64, u32)> = s
-                .iter()
-                .enumerate()
-                .map(|(i, &x)| (key(x), i as u32))
-                .collect();
-            order.sort_unstable();
-            col.sort_unstable_by(|a, b| a.total_cmp(b));
-            let mut out = vec![0.0; n];
-            for (r, &(_, i)) in order.iter().enumerate() {
-                out[i as usize] = col[r];
+            let order = key_order(s.iter().map(|&x| key32(x)));
+            let sorted = sort_values(col);
+            for (r, &i) in order.iter().enumerate() {
+                col[i as usize] = sorted[r];
             }
-            *col = out;
         });
     Ok(())
 }
@@ -494,14 +516,11 @@ pub fn spearman(a: &[f64], b: &[f64]) -> f64 {
         return f64::NAN;
     }
     let rank = |x: &[f64]| -> Vec<f64> {
-        let mut o: Vec<(u64, u32)> = x[..n]
+        let mut r = vec![0.0; n];
+        for (k, &i) in key_order(x[..n].iter().map(|&v| key32(v)))
             .iter()
             .enumerate()
-            .map(|(i, &v)| (key(v), i as u32))
-            .collect();
-        o.sort_unstable();
-        let mut r = vec![0.0; n];
-        for (k, &(_, i)) in o.iter().enumerate() {
+        {
             r[i as usize] = k as f64;
         }
         r
