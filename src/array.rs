@@ -303,6 +303,116 @@ where
     Ok(outs.map(|v| ArrayD::from_shape_vec(dim.clone(), v).expect("len == shape product")))
 }
 
+/// Elements handed at once to the kernel of [`lift_batched`].
+pub const BATCH: usize = 8;
+
+/// As [`lift`], but the kernel receives [`BATCH`] elements at a time, so that it can run
+/// independent iterations side by side (instruction-level parallelism, SIMD lanes). Same
+/// broadcasting, NaN, error-index, raise/coerce and parallel rules as [`lift`].
+///
+/// The kernel gets the gathered inputs `xs` and writes one result per element into `ys`.
+/// In the last batch of a chunk the unused slots are filled with copies of the batch's
+/// first element and their results are discarded. Results for elements with a NaN input
+/// are replaced by NaN (the kernel must still not panic on them).
+///
+/// # Errors
+/// As [`lift`].
+///
+/// # Examples
+/// ```
+/// use ndarray::arr1;
+/// use stocktank::array::{lift_batched, OnError, BATCH};
+/// use stocktank::error::positive;
+/// let x = arr1(&[1.0, 2.0, 3.0]).into_dyn();
+/// let out = lift_batched(["x"], [x.view()], OnError::Raise, |xs: &[[f64; 1]; BATCH], ys: &mut [stocktank::Result<f64>; BATCH]| {
+///     for (x, y) in xs.iter().zip(ys.iter_mut()) {
+///         *y = positive("x", x[0]).map(|v| 2.0 * v);
+///     }
+/// })
+/// .unwrap();
+/// assert_eq!(out.as_slice().unwrap(), &[2.0, 4.0, 6.0]);
+/// ```
+pub fn lift_batched<const N: usize, F>(
+    names: [&'static str; N],
+    inputs: [ArrayViewD<'_, f64>; N],
+    on_error: OnError,
+    f: F,
+) -> Result<ArrayD<f64>>
+where
+    F: Fn(&[[f64; N]; BATCH], &mut [Result<f64>; BATCH]) + Sync,
+{
+    let shapes: [&[usize]; N] = inputs.each_ref().map(|v| v.shape());
+    let shape = broadcast_shape(&names, &shapes)?;
+    let total: usize = shape.iter().product();
+    let sources: [Source<'_>; N] = inputs.each_ref().map(|v| source(v, &shape));
+    let mut out = vec![0.0; total];
+
+    let run = |start: usize, chunk: &mut [f64]| -> Option<(Vec<usize>, Error)> {
+        let len = chunk.len();
+        let mut multi = vec![0usize; shape.len()];
+        unravel(start, &shape, &mut multi);
+        let mut k0 = 0;
+        while k0 < len {
+            let m = BATCH.min(len - k0);
+            let mut xs = [[0.0; N]; BATCH];
+            for x in xs.iter_mut().take(m) {
+                *x = std::array::from_fn(|i| sources[i].get(start + k0, &multi));
+                k0 += 1;
+                advance(&mut multi, &shape);
+            }
+            k0 -= m;
+            for j in m..BATCH {
+                xs[j] = xs[0];
+            }
+            let mut ys: [Result<f64>; BATCH] = std::array::from_fn(|_| Ok(0.0));
+            f(&xs, &mut ys);
+            for (j, y) in ys.into_iter().enumerate().take(m) {
+                chunk[k0 + j] = if xs[j].iter().any(|v| v.is_nan()) {
+                    f64::NAN
+                } else {
+                    match y {
+                        Ok(v) => v,
+                        Err(e) => match on_error {
+                            OnError::Coerce => f64::NAN,
+                            OnError::Raise => {
+                                let mut at = vec![0usize; shape.len()];
+                                unravel(start + k0 + j, &shape, &mut at);
+                                return Some((at, e));
+                            }
+                        },
+                    }
+                };
+            }
+            k0 += m;
+        }
+        None
+    };
+
+    let first_error = if total < PARALLEL_THRESHOLD {
+        run(0, &mut out)
+    } else {
+        out.par_chunks_mut(CHUNK)
+            .enumerate()
+            .map(|(c, chunk)| run(c * CHUNK, chunk))
+            .find_first(|r| r.is_some())
+            .flatten()
+    };
+    if let Some((multi, e)) = first_error {
+        let e = match &e {
+            Error::InvalidArgument { arg, .. } => match names.iter().position(|n| n == arg) {
+                Some(i) if !shapes[i].is_empty() => e.at_index(&own_index(shapes[i], &multi)),
+                Some(_) => e,
+                None if !shape.is_empty() => e.at_index(&multi),
+                None => e,
+            },
+            _ => e,
+        };
+        return Err(e);
+    }
+    // The output length is the product of `shape` by construction, so this cannot fail.
+    Ok(ArrayD::from_shape_vec(IxDyn(&shape), out).expect("len == shape product"))
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -378,6 +488,31 @@ mod tests {
         )
         .unwrap();
         assert_eq!(out, arr2(&[[11.0, 23.0], [12.0, 24.0]]).into_dyn());
+    }
+
+    #[test]
+    fn batched_matches_lift() {
+        let batch = |xs: &[[f64; 2]; BATCH], ys: &mut [Result<f64>; BATCH]| {
+            for (x, y) in xs.iter().zip(ys.iter_mut()) {
+                *y = positive("a", x[0]).map(|a| a * x[1]);
+            }
+        };
+        for n in [0, 1, 7, 8, 9, 100, 3 * PARALLEL_THRESHOLD + 5] {
+            let a = Array::linspace(1.0, 2.0, n).into_shape_with_order((n, 1)).unwrap().into_dyn();
+            let b = arr1(&[1.0, f64::NAN, 3.0]).into_dyn();
+            let f = |[a, b]: [f64; 2]| Ok(positive("a", a)? * b);
+            let x = lift(["a", "b"], [a.view(), b.view()], OnError::Raise, f).unwrap();
+            let y = lift_batched(["a", "b"], [a.view(), b.view()], OnError::Raise, batch).unwrap();
+            assert_eq!(x.shape(), y.shape());
+            assert!(x.iter().zip(y.iter()).all(|(p, q)| p == q || (p.is_nan() && q.is_nan())));
+        }
+        let mut a = Array::linspace(1.0, 2.0, 3 * PARALLEL_THRESHOLD).into_dyn();
+        a[[PARALLEL_THRESHOLD + 3]] = -1.0;
+        let one = arr1(&[1.0]).into_dyn();
+        let err = lift_batched(["a", "b"], [a.view(), one.view()], OnError::Raise, batch).unwrap_err();
+        assert_eq!(err, Error::invalid("a", -1.0, "must be finite and > 0").at_index(&[PARALLEL_THRESHOLD + 3]));
+        let out = lift_batched(["a", "b"], [a.view(), one.view()], OnError::Coerce, batch).unwrap();
+        assert!(out[[PARALLEL_THRESHOLD + 3]].is_nan());
     }
 
     #[test]
