@@ -3,7 +3,8 @@
 >>> import stocktank
 >>> n_sm3 = stocktank.metric.ooip(2.59e6, 15.24, 1.0, 0.2, 0.25, 1.2)   # m2, m, -, -, -, rm3/sm3
 
-Units (see :data:`stocktank.units.METRIC`): pressure kPa, temperature degC, length m, area m2,
+Units (see :data:`stocktank.units.METRIC`): pressure kPa, temperature degC (absolute
+temperatures such as Tpc in K), length m, area m2,
 rock volume m3, oil and gas volumes sm3, FVFs rm3/sm3, GOR sm3/sm3, density kg/m3, viscosity
 mPa.s, compressibility 1/kPa, permeability md. Fractions stay fractions.
 
@@ -11,12 +12,17 @@ How it works: :data:`TABLE` declares, per function, which argument and which res
 quantity (a *role*); each function here is generated from its line in the table, converting
 declared inputs to field units, calling the field-unit function, and converting the declared
 results back. Another unit choice: ``stocktank.units.UnitSystem(area="km2").namespace()``.
-Adding a function is one line in :data:`TABLE`. Results are screening estimates.
+Adding a function is one line in :data:`TABLE`. Description classes (``Gas``) get a proxy
+whose constructor and methods use metric units (:data:`CLASSES`): ``stocktank.metric.Gas(0.7)
+.z(p=20000.0, t=90.0)`` with kPa and degC; the field-unit object is ``.field``. Not yet
+converted: pseudo-pressure, Eg and Bg in rb/Mscf (use ``.field`` and :func:`stocktank.units
+.convert`). Results are screening estimates.
 """
 
 import types
 from typing import Any, Dict, List, Mapping, Tuple
 
+from . import gas as _gas
 from . import volumetrics as _vol
 from .units import METRIC, ArgSpec, UnitSystem
 
@@ -37,7 +43,34 @@ TABLE: Dict[str, Tuple[Any, Mapping[str, ArgSpec], Any]] = {
     "fractional_flow": (_vol.fractional_flow, {"mu_o": "viscosity", "mu_w": "viscosity"}, None),
     "welge_front": (_vol.welge_front, {"mu_o": "viscosity", "mu_w": "viscosity"}, None),
     "displacement_efficiency": (_vol.displacement_efficiency, {"mu_o": "viscosity", "mu_w": "viscosity"}, None),
-    # gas (added after the gas functions land)
+    # gas
+    "bg": (_gas.bg, {"p_psia": ("pressure", "p"), "t_f": ("temperature", "t"), "p_sc": "pressure", "t_sc": "temperature"}, "gas_fvf"),
+    "gas_density": (_gas.gas_density, {"p_psia": ("pressure", "p"), "t_f": ("temperature", "t")}, "density"),
+    "viscosity_lee_gonzalez_eakin": (_gas.viscosity_lee_gonzalez_eakin, {"t_f": ("temperature", "t"), "density_lbm_ft3": ("density", "density")}, "viscosity"),
+    "pseudo_critical": (_gas.pseudo_critical, {}, ("absolute_temperature", "pressure")),
+    "pseudo_critical_kay": (_gas.pseudo_critical_kay, {}, ("absolute_temperature", "pressure", None)),
+    "wichert_aziz": (_gas.wichert_aziz, {"tpc_r": ("absolute_temperature", "tpc"), "ppc_psia": ("pressure", "ppc")}, ("absolute_temperature", "pressure")),
+    "recombined_gas_sg": (_gas.recombined_gas_sg, {"separator_gor": "gas_oil_ratio", "stock_tank_gor": "gas_oil_ratio", "p_sc": "pressure", "t_sc": "temperature"}, None),
+    "gas_equivalent": (_gas.gas_equivalent, {"p_sc": "pressure", "t_sc": "temperature"}, "gas_oil_ratio"),
+}
+
+#: Description classes: name -> (class, constructor arguments, {method: (arguments, result)},
+#: {property: role}). Methods not listed keep field units (reach them via ``.field``).
+_GAS_PT = {"p_psia": ("pressure", "p"), "t_f": ("temperature", "t")}
+_GAS_PT_SC = dict(_GAS_PT, p_sc="pressure", t_sc="temperature")
+CLASSES: Dict[str, Tuple[Any, Mapping[str, ArgSpec], Dict[str, Tuple[Mapping[str, ArgSpec], Any]], Dict[str, str]]] = {
+    "Gas": (
+        _gas.Gas,
+        {"tpc_r": ("absolute_temperature", "tpc"), "ppc_psia": ("pressure", "ppc")},
+        {
+            "z": (_GAS_PT, None),
+            "bg": (_GAS_PT_SC, "gas_fvf"),
+            "density": (_GAS_PT, "density"),
+            "viscosity": (_GAS_PT, "viscosity"),
+            "cg": (_GAS_PT, "compressibility"),
+        },
+        {"tpc_r": "absolute_temperature", "ppc_psia": "pressure"},
+    ),
 }
 
 #: Functions whose units depend on an option; wrapped by hand below.
@@ -84,6 +117,8 @@ def _build(system: UnitSystem) -> types.SimpleNamespace:
     ns = types.SimpleNamespace()
     for name, (func, args, returns) in TABLE.items():
         setattr(ns, name, system.wrap(func, args, returns))
+    for name, (cls, init, methods, props) in CLASSES.items():
+        setattr(ns, name, system.wrap_class(cls, init, methods, props))
     ns.probabilistic_in_place = _probabilistic(system)
     ns.units = dict(system.units)
     return ns
@@ -95,4 +130,4 @@ globals().update({k: v for k, v in vars(_metric).items() if k != "units"})
 #: The metric unit of each role.
 UNITS: Dict[str, str] = dict(METRIC)
 
-__all__: List[str] = sorted(list(TABLE) + list(_SPECIAL)) + ["TABLE", "UNITS"]
+__all__: List[str] = sorted(list(TABLE) + list(_SPECIAL) + list(CLASSES)) + ["TABLE", "CLASSES", "UNITS"]

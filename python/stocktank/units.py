@@ -59,6 +59,7 @@ def convert(value: Any, from_unit: str, to_unit: str) -> Any:
 FIELD: Dict[str, str] = {
     "pressure": "psia",
     "temperature": "degF",
+    "absolute_temperature": "degR",
     "length": "ft",
     "area": "acre",
     "rock_volume": "acre-ft",
@@ -78,6 +79,7 @@ FIELD: Dict[str, str] = {
 METRIC: Dict[str, str] = {
     "pressure": "kPa",
     "temperature": "degC",
+    "absolute_temperature": "K",
     "length": "m",
     "area": "m2",
     "rock_volume": "m3",
@@ -133,6 +135,43 @@ class UnitSystem:
         role, a tuple of roles (one per returned element, ``None`` for unitless) or ``None``.
         """
         return _wrap(self, func, args, returns)
+
+    def wrap_class(self, cls: Any, init: Mapping[str, ArgSpec], methods: Mapping[str, Tuple[Mapping[str, ArgSpec], Any]], properties: Mapping[str, str]) -> Any:
+        """A proxy class of ``cls`` whose constructor, listed methods and listed properties use
+        this system's units; the field-unit object is its ``field`` attribute and every other
+        attribute is passed through unchanged."""
+        system = self
+        make = self.wrap(cls, init, None)
+
+        class Proxy:
+            __doc__ = f"{cls.__name__} in units {system.units}; the field-unit object is ``.field``.\n\n{cls.__doc__ or ''}"
+
+            def __init__(self, *a: Any, **kw: Any) -> None:
+                self.field = make(*a, **kw)
+
+            def __repr__(self) -> str:
+                return f"{type(self).__name__}[{', '.join(f'{r}={u}' for r, u in system.units.items() if r in used)}]({self.field!r})"
+
+            def __eq__(self, other: object) -> bool:
+                return isinstance(other, Proxy) and self.field == other.field
+
+            def __getattr__(self, name: str) -> Any:
+                return getattr(self.__dict__["field"], name)
+
+        used = set(r if isinstance(r, str) else r[0] for r in init.values()) | set(properties.values())
+        for name, (args, returns) in methods.items():
+            w = self.wrap(getattr(cls, name), args, returns)
+
+            def method(self: Any, *a: Any, _w: Any = w, **kw: Any) -> Any:
+                return _w(self.field, *a, **kw)
+
+            method.__name__ = name
+            method.__doc__ = w.__doc__
+            setattr(Proxy, name, method)
+        for name, role in properties.items():
+            setattr(Proxy, name, property(lambda self, _n=name, _r=role: system.from_field(getattr(self.field, _n), _r)))
+        Proxy.__name__ = Proxy.__qualname__ = cls.__name__
+        return Proxy
 
     def namespace(self) -> types.SimpleNamespace:
         """Every function of the table of :mod:`stocktank.metric`, wrapped for this system."""
@@ -202,12 +241,17 @@ def _wrap(system: UnitSystem, func: Callable[..., Any], args: Mapping[str, ArgSp
     @functools.wraps(func)
     def wrapper(*a: Any, **kw: Any) -> Any:
         bound = new_sig.bind(*a, **kw)
+        pos: list = []
         call: Dict[str, Any] = {}
         for name, value in bound.arguments.items():
             field = rename[name]
             role = roles.get(field)
-            call[field] = system.to_field(value, role) if role else value
-        return convert_out(func(**call))
+            value = system.to_field(value, role) if role else value
+            if sig.parameters[field].kind is inspect.Parameter.POSITIONAL_ONLY:
+                pos.append(value)
+            else:
+                call[field] = value
+        return convert_out(func(*pos, **call))
 
     lines = []
     for field, role in roles.items():

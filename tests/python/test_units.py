@@ -153,3 +153,21 @@ def test_metric_probabilistic_matches_field():
     assert met["unit"] == "sm3"
     assert met["summary"]["p50"] == pytest.approx(convert(fld["summary"]["p50"], "STB", "sm3"), rel=1e-9)
     assert met["inputs"]["area"].max() <= 6e6 * (1 + 1e-12)
+
+
+def test_metric_gas_functions_and_class():
+    # A metric call equals the field call with inputs and outputs converted by hand.
+    p_kpa, t_c = np.array([5000.0, 20000.0]), 90.0
+    p_psia, t_f = convert(p_kpa, "kPa", "psia"), convert(t_c, "degC", "degF")
+    g = st.metric.Gas(0.7, co2=0.02)
+    field = st.Gas(0.7, co2=0.02)
+    np.testing.assert_allclose(g.z(p_kpa, t_c), field.z(p_psia, t_f), rtol=1e-14)
+    np.testing.assert_allclose(g.density(p_kpa, t=t_c), convert(field.density(p_psia, t_f), "lbm/ft3", "kg/m3"), rtol=1e-13)
+    np.testing.assert_allclose(g.cg(p=p_kpa, t=t_c), convert(field.cg(p_psia, t_f), "1/psi", "1/kPa"), rtol=1e-13)
+    np.testing.assert_allclose(g.bg(p_kpa, t_c), field.bg(p_psia, t_f), rtol=1e-13)  # rcf/scf = rm3/sm3
+    assert g.tpc_r == pytest.approx(convert(field.tpc_r, "degR", "K"), rel=1e-14)
+    assert g.field == field and g == st.metric.Gas(0.7, co2=0.02)
+    tpc, ppc = st.metric.pseudo_critical(0.7)
+    assert ppc == pytest.approx(convert(st.gas.pseudo_critical(0.7)[1], "psia", "kPa"), rel=1e-14)
+    z = 0.9
+    assert st.metric.bg(p=20000.0, t=90.0, z=z) == pytest.approx(st.bg(convert(20000.0, "kPa", "psia"), convert(90.0, "degC", "degF"), z), rel=1e-13)
