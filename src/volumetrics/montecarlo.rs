@@ -515,22 +515,28 @@ pub fn spearman(a: &[f64], b: &[f64]) -> f64 {
     if n < 2 {
         return f64::NAN;
     }
-    let rank = |x: &[f64]| -> Vec<f64> {
-        let mut r = vec![0.0; n];
-        for (k, &i) in key_order(x[..n].iter().map(|&v| key32(v)))
-            .iter()
-            .enumerate()
-        {
-            r[i as usize] = k as f64;
-        }
-        r
-    };
-    let const_a = a[..n].iter().all(|&v| v == a[0]);
-    let const_b = b[..n].iter().all(|&v| v == b[0]);
-    if const_a || const_b {
+    rank_correlation(&ranks(&a[..n]), &ranks(&b[..n]))
+}
+
+/// Ranks 0..n of a sample (ties, at f32 resolution, ranked by position); empty when the
+/// sample is constant.
+fn ranks(x: &[f64]) -> Vec<f64> {
+    if x.iter().all(|&v| v == x[0]) {
+        return Vec::new();
+    }
+    let mut r = vec![0.0; x.len()];
+    for (k, &i) in key_order(x.iter().map(|&v| key32(v))).iter().enumerate() {
+        r[i as usize] = k as f64;
+    }
+    r
+}
+
+/// Pearson correlation of two rank vectors of equal length (NaN if either is empty).
+fn rank_correlation(ra: &[f64], rb: &[f64]) -> f64 {
+    let n = ra.len();
+    if n < 2 || rb.len() != n {
         return f64::NAN;
     }
-    let (ra, rb) = (rank(a), rank(b));
     let mean = (n as f64 - 1.0) / 2.0;
     let (mut sab, mut saa, mut sbb) = (0.0, 0.0, 0.0);
     for i in 0..n {
@@ -566,22 +572,52 @@ pub fn percentiles(data: &mut [f64], q: &[f64]) -> Result<Vec<f64>> {
     if n == 0 {
         return Err(Error::invalid("data", f64::NAN, "sample is empty"));
     }
-    let mut out = Vec::with_capacity(q.len());
+    // The order statistics needed (lo and lo + 1 of each q), found by nested selection.
+    let mut plan = Vec::with_capacity(q.len());
+    let mut need = Vec::with_capacity(2 * q.len());
     for &p in q {
         crate::error::fraction("q", p)?;
         let h = (n - 1) as f64 * p;
-        let lo = h.floor() as usize;
+        let lo = (h.floor() as usize).min(n - 1);
         let frac = h - lo as f64;
-        let (_, &mut a, right) = data.select_nth_unstable_by(lo, |x, y| x.total_cmp(y));
-        let v = if frac > 0.0 && !right.is_empty() {
-            let b = right.iter().copied().fold(f64::INFINITY, f64::min);
-            a + frac * (b - a)
-        } else {
-            a
-        };
-        out.push(v);
+        need.push(lo);
+        if frac > 0.0 && lo + 1 < n {
+            need.push(lo + 1);
+        }
+        plan.push((lo, frac));
     }
-    Ok(out)
+    need.sort_unstable();
+    need.dedup();
+    let mut found = Vec::with_capacity(need.len());
+    select_many(data, &need, 0, &mut found);
+    found.sort_unstable_by_key(|&(i, _)| i);
+    let at = |i: usize| found[found.binary_search_by_key(&i, |&(j, _)| j).unwrap_or(0)].1;
+    Ok(plan
+        .into_iter()
+        .map(|(lo, frac)| {
+            let a = at(lo);
+            if frac > 0.0 && lo + 1 < n {
+                a + frac * (at(lo + 1) - a)
+            } else {
+                a
+            }
+        })
+        .collect())
+}
+
+/// Place the order statistics `idx` (sorted, unique, relative to `data`) by nested
+/// selection; pushes `(offset + index, value)`.
+fn select_many(data: &mut [f64], idx: &[usize], offset: usize, out: &mut Vec<(usize, f64)>) {
+    if idx.is_empty() {
+        return;
+    }
+    let mid = idx.len() / 2;
+    let k = idx[mid];
+    let (left, v, right) = data.select_nth_unstable_by(k, |x, y| x.total_cmp(y));
+    out.push((offset + k, *v));
+    select_many(left, &idx[..mid], offset, out);
+    let shifted: Vec<usize> = idx[mid + 1..].iter().map(|&i| i - k - 1).collect();
+    select_many(right, &shifted, offset + k + 1, out);
 }
 
 /// Summary of a probabilistic volume. **P90 is the low value** (exceeded with 90%
@@ -828,6 +864,11 @@ pub fn probabilistic_in_place(
         })
         .collect();
     let sub = trials.min(200_000);
+    let vol_ranks = ranks(&in_place[..sub]);
+    let rank_corr: Vec<f64> = (0..6)
+        .into_par_iter()
+        .map(|j| rank_correlation(&ranks(&cols[j][..sub]), &vol_ranks))
+        .collect();
     let mut tornado: Vec<TornadoRow> = (0..6)
         .map(|j| {
             let at = |v: f64| {
@@ -845,7 +886,7 @@ pub fn probabilistic_in_place(
                 volume_at_low: vl,
                 volume_at_high: vh,
                 swing: (vh - vl).abs(),
-                rank_correlation: spearman(&cols[j][..sub], &in_place[..sub]),
+                rank_correlation: rank_corr[j],
             }
         })
         .collect();
