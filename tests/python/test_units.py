@@ -171,3 +171,12 @@ def test_metric_gas_functions_and_class():
     assert ppc == pytest.approx(convert(st.gas.pseudo_critical(0.7)[1], "psia", "kPa"), rel=1e-14)
     z = 0.9
     assert st.metric.bg(p=20000.0, t=90.0, z=z) == pytest.approx(st.bg(convert(20000.0, "kPa", "psia"), convert(90.0, "degC", "degF"), z), rel=1e-13)
+
+
+def test_rebase_gas_volume_ideal_gas():
+    # Ideal gas law: V2 = V1 (p1 / p2)(T2 / T1) with absolute temperatures.
+    v = st.units.rebase_gas_volume([1.0, 2.0], from_p_sc=14.696, from_t_sc=60.0, to_p_sc=14.65, to_t_sc=60.0)
+    np.testing.assert_allclose(v, np.array([1.0, 2.0]) * 14.696 / 14.65, rtol=1e-15)
+    assert st.units.unit_quantity("kPa") == "pressure"
+    with pytest.raises(st.InvalidArgumentError, match="volume"):
+        st.units.rebase_gas_volume(-1.0, from_p_sc=14.696, from_t_sc=60.0, to_p_sc=14.65, to_t_sc=60.0)

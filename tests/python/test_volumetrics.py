@@ -286,3 +286,8 @@ def test_piston_front_and_critical_saturation():
     assert w["sw_front"] == pytest.approx(0.7) and w["pv_breakthrough"] == pytest.approx(0.5)
     assert st.fractional_flow(k, [0.7, 0.8, 1.0], mu_o=1.0, mu_w=1.0) == pytest.approx([1.0, 1.0, 1.0])
     assert st.displacement_efficiency(k, [0.25, 0.5, 2.0], mu_o=1.0, mu_w=1.0) == pytest.approx([0.25 / 0.8, 0.5 / 0.8, 0.5 / 0.8])
+
+
+def test_fixed_input_cannot_be_correlated():
+    with pytest.raises(st.InvalidArgumentError, match="fixed input cannot be correlated"):
+        st.probabilistic_in_place("oil", **inputs(fvf=1.3), correlation={("sw", "fvf"): 0.3}, trials=1000)
