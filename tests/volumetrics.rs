@@ -243,13 +243,24 @@ fn iman_conover_hits_target_and_keeps_marginals() {
     assert!((r(Input::Area, Input::Thickness) - 0.4).abs() < 0.02);
     assert!((r(Input::NetToGross, Input::Porosity) - 0.5).abs() < 0.02);
     assert!(r(Input::Area, Input::Sw).abs() < 0.02);
-    // Marginals are the same multiset of values.
-    for j in 0..6 {
+    // Iman–Conover only re-pairs: each column keeps the same multiset of values.
+    let mut cols: Vec<Vec<f64>> = ind.inputs[..3].to_vec();
+    let c3 = Correlation::new(3, vec![1.0, 0.5, -0.3, 0.5, 1.0, 0.2, -0.3, 0.2, 1.0]).unwrap();
+    iman_conover(&mut cols, &c3, 17).unwrap();
+    for j in 0..3 {
         let mut a = ind.inputs[j].clone();
-        let mut b = cor.inputs[j].clone();
+        let mut b = cols[j].clone();
         a.sort_by(f64::total_cmp);
         b.sort_by(f64::total_cmp);
         assert_eq!(a, b);
+    }
+    assert!((spearman(&cols[0], &cols[2]) + 0.3).abs() < 0.02);
+    // Correlated inputs keep their distribution (drawn as sorted quantiles).
+    for (j, d) in [(3usize, inputs().porosity), (1, inputs().thickness)] {
+        let x = &cor.inputs[j];
+        let m = x.iter().sum::<f64>() / x.len() as f64;
+        let se = (d.variance() / x.len() as f64).sqrt();
+        assert!((m - d.mean()).abs() < 5.0 * se, "{j}: {m} vs {}", d.mean());
     }
 }
 

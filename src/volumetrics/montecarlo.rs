@@ -326,6 +326,20 @@ impl Correlation {
     }
 }
 
+/// A parallel sum over `0..n` whose result does not depend on the thread schedule: fixed
+/// blocks summed in parallel, then the block sums added in order.
+fn det_sum<F>(n: usize, f: F) -> f64
+where
+    F: Fn(std::ops::Range<usize>) -> f64 + Sync,
+{
+    let block = 1 << 15;
+    let parts: Vec<f64> = (0..n.div_ceil(block))
+        .into_par_iter()
+        .map(|b| f(b * block..((b + 1) * block).min(n)))
+        .collect();
+    parts.iter().sum()
+}
+
 /// Order-preserving 64-bit key of an f64 (a bijection; NaN sorts last).
 #[inline]
 fn key64(x: f64) -> u64 {
@@ -391,6 +405,16 @@ fn sort_values(x: &[f64]) -> Vec<f64> {
 /// # References
 /// Iman, R.L., Conover, W.J. (1982). Commun. Statist. Simula. Computa. 11(3), 311–334.
 pub fn iman_conover(columns: &mut [Vec<f64>], target: &Correlation, seed: u64) -> Result<()> {
+    iman_conover_impl(columns, target, seed, false)
+}
+
+/// [`iman_conover`]; `presorted` promises that every column is already in ascending order.
+fn iman_conover_impl(
+    columns: &mut [Vec<f64>],
+    target: &Correlation,
+    seed: u64,
+    presorted: bool,
+) -> Result<()> {
     let k = columns.len();
     if k != target.k {
         return Err(Error::Shape(format!(
@@ -434,12 +458,8 @@ pub fn iman_conover(columns: &mut [Vec<f64>], target: &Correlation, seed: u64) -
     for i in 0..k {
         t[i * k + i] = 1.0;
         for j in 0..i {
-            let c = scores[i]
-                .par_iter()
-                .zip(scores[j].par_iter())
-                .map(|(a, b)| a * b)
-                .sum::<f64>()
-                / n as f64;
+            let (a, b) = (&scores[i], &scores[j]);
+            let c = det_sum(n, |r| r.map(|t| a[t] * b[t]).sum()) / n as f64;
             t[i * k + j] = c;
             t[j * k + i] = c;
         }
@@ -490,7 +510,12 @@ pub fn iman_conover(columns: &mut [Vec<f64>], target: &Correlation, seed: u64) -
         .zip(scores.par_iter())
         .for_each(|(col, s)| {
             let order = key_order(s.iter().map(|&x| key32(x)));
-            let sorted = sort_values(col);
+            let sorted = if presorted {
+                std::mem::take(col)
+            } else {
+                sort_values(col)
+            };
+            col.resize(n, 0.0);
             for (r, &i) in order.iter().enumerate() {
                 col[i as usize] = sorted[r];
             }
@@ -657,12 +682,9 @@ pub fn summarize(data: &[f64]) -> Result<Summary> {
     let n = data.len();
     let mut copy = data.to_vec();
     let p = percentiles(&mut copy, &[0.1, 0.5, 0.9])?;
-    let mean = data.par_iter().sum::<f64>() / n as f64;
+    let mean = det_sum(n, |r| r.map(|t| data[t]).sum()) / n as f64;
     let var = if n > 1 {
-        data.par_iter()
-            .map(|x| (x - mean) * (x - mean))
-            .sum::<f64>()
-            / (n - 1) as f64
+        det_sum(n, |r| r.map(|t| (data[t] - mean) * (data[t] - mean)).sum()) / (n - 1) as f64
     } else {
         0.0
     };
@@ -786,39 +808,47 @@ pub fn probabilistic_in_place(
             )));
         }
     }
-    // Sample every input (an absent recovery factor stays empty).
+    // Inputs that take part in a correlation.
+    let active: Vec<usize> = match correlation {
+        Some(c) => (0..k)
+            .filter(|&i| (0..k).any(|j| j != i && c.get(i, j) != 0.0))
+            .collect(),
+        None => Vec::new(),
+    };
+    for &i in &active {
+        match inputs.get(Input::ALL[i]) {
+            None => {
+                return Err(Error::invalid(
+                    "correlation",
+                    f64::NAN,
+                    "recovery_factor is correlated but no recovery_factor distribution was given",
+                ));
+            }
+            Some(Distribution::Fixed { value }) => {
+                return Err(Error::invalid(
+                    "correlation",
+                    *value,
+                    "a fixed input cannot be correlated",
+                )
+                .at_index(&[i]));
+            }
+            _ => {}
+        }
+    }
+    // Sample every input (an absent recovery factor stays empty); correlated inputs are
+    // drawn in ascending order, ready for the Iman–Conover placement.
     let mut cols: Vec<Vec<f64>> = Input::ALL
         .par_iter()
         .map(|&i| match inputs.get(i) {
+            Some(d) if active.contains(&i.index()) => {
+                d.sample_sorted(trials, seed, i.index() as u64)
+            }
             Some(d) => d.sample(trials, seed, i.index() as u64),
             None => Vec::new(),
         })
         .collect();
     // Correlate the inputs that take part in a correlation.
     if let Some(c) = correlation {
-        let active: Vec<usize> = (0..k)
-            .filter(|&i| (0..k).any(|j| j != i && c.get(i, j) != 0.0))
-            .collect();
-        for &i in &active {
-            match inputs.get(Input::ALL[i]) {
-                None => {
-                    return Err(Error::invalid(
-                        "correlation",
-                        f64::NAN,
-                        "recovery_factor is correlated but no recovery_factor distribution was given",
-                    ));
-                }
-                Some(Distribution::Fixed { value }) => {
-                    return Err(Error::invalid(
-                        "correlation",
-                        *value,
-                        "a fixed input cannot be correlated",
-                    )
-                    .at_index(&[i]));
-                }
-                _ => {}
-            }
-        }
         if !active.is_empty() {
             let m = active.len();
             let mut sub = vec![0.0; m * m];
@@ -832,7 +862,7 @@ pub fn probabilistic_in_place(
                 .iter()
                 .map(|&i| std::mem::take(&mut cols[i]))
                 .collect();
-            iman_conover(&mut taken, &sub, seed ^ 0x005E_ED1C)?;
+            iman_conover_impl(&mut taken, &sub, seed ^ 0x005E_ED1C, true)?;
             for (&i, col) in active.iter().zip(taken) {
                 cols[i] = col;
             }

@@ -163,6 +163,9 @@ def test_reproducible_by_seed_and_correlation_hits_target():
     for (p, q), r in corr.items():
         assert stats.spearmanr(x[p], x[q]).statistic == pytest.approx(r, abs=0.02)
     assert abs(stats.spearmanr(x["area"], x["sw"]).statistic) < 0.02
+    # Correlated inputs keep their distributions (Kolmogorov-Smirnov against scipy).
+    assert stats.kstest(x["porosity"][:50_000], stats.truncnorm(-5, 5, loc=0.2, scale=0.03).cdf).pvalue > 1e-4
+    assert stats.kstest(x["area"][:50_000], stats.triang(0.2 / 0.7, loc=800, scale=700).cdf).pvalue > 1e-4
     # The volume of each trial is the formula of that trial's inputs.
     n = C_OIL * x["area"] * x["thickness"] * x["net_to_gross"] * x["porosity"] * (1 - x["sw"]) / x["fvf"]
     np.testing.assert_allclose(a["in_place"], n, rtol=1e-13)
