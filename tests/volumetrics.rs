@@ -247,9 +247,9 @@ fn iman_conover_hits_target_and_keeps_marginals() {
     let mut cols: Vec<Vec<f64>> = ind.inputs[..3].to_vec();
     let c3 = Correlation::new(3, vec![1.0, 0.5, -0.3, 0.5, 1.0, 0.2, -0.3, 0.2, 1.0]).unwrap();
     iman_conover(&mut cols, &c3, 17).unwrap();
-    for j in 0..3 {
-        let mut a = ind.inputs[j].clone();
-        let mut b = cols[j].clone();
+    for (orig, col) in ind.inputs.iter().zip(&cols) {
+        let mut a = orig.clone();
+        let mut b = col.clone();
         a.sort_by(f64::total_cmp);
         b.sort_by(f64::total_cmp);
         assert_eq!(a, b);
