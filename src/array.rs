@@ -304,6 +304,11 @@ where
 }
 
 /// Elements handed at once to the kernel of [`lift_batched`].
+///
+/// # Examples
+/// ```
+/// assert_eq!(stocktank::array::BATCH, 8);
+/// ```
 pub const BATCH: usize = 8;
 
 /// As [`lift`], but the kernel receives [`BATCH`] elements at a time, so that it can run
@@ -498,19 +503,30 @@ mod tests {
             }
         };
         for n in [0, 1, 7, 8, 9, 100, 3 * PARALLEL_THRESHOLD + 5] {
-            let a = Array::linspace(1.0, 2.0, n).into_shape_with_order((n, 1)).unwrap().into_dyn();
+            let a = Array::linspace(1.0, 2.0, n)
+                .into_shape_with_order((n, 1))
+                .unwrap()
+                .into_dyn();
             let b = arr1(&[1.0, f64::NAN, 3.0]).into_dyn();
             let f = |[a, b]: [f64; 2]| Ok(positive("a", a)? * b);
             let x = lift(["a", "b"], [a.view(), b.view()], OnError::Raise, f).unwrap();
             let y = lift_batched(["a", "b"], [a.view(), b.view()], OnError::Raise, batch).unwrap();
             assert_eq!(x.shape(), y.shape());
-            assert!(x.iter().zip(y.iter()).all(|(p, q)| p == q || (p.is_nan() && q.is_nan())));
+            assert!(
+                x.iter()
+                    .zip(y.iter())
+                    .all(|(p, q)| p == q || (p.is_nan() && q.is_nan()))
+            );
         }
         let mut a = Array::linspace(1.0, 2.0, 3 * PARALLEL_THRESHOLD).into_dyn();
         a[[PARALLEL_THRESHOLD + 3]] = -1.0;
         let one = arr1(&[1.0]).into_dyn();
-        let err = lift_batched(["a", "b"], [a.view(), one.view()], OnError::Raise, batch).unwrap_err();
-        assert_eq!(err, Error::invalid("a", -1.0, "must be finite and > 0").at_index(&[PARALLEL_THRESHOLD + 3]));
+        let err =
+            lift_batched(["a", "b"], [a.view(), one.view()], OnError::Raise, batch).unwrap_err();
+        assert_eq!(
+            err,
+            Error::invalid("a", -1.0, "must be finite and > 0").at_index(&[PARALLEL_THRESHOLD + 3])
+        );
         let out = lift_batched(["a", "b"], [a.view(), one.view()], OnError::Coerce, batch).unwrap();
         assert!(out[[PARALLEL_THRESHOLD + 3]].is_nan());
     }

@@ -17,6 +17,13 @@ use crate::units::{RANKINE_OFFSET, StandardConditions};
 use ndarray::{ArrayD, ArrayViewD};
 
 /// Where the pseudo-critical properties of a [`Gas`] come from.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::{Gas, PseudoCriticalSource};
+/// let g = Gas::new(0.7).unwrap().with_pseudo_critical(380.0, 670.0).unwrap();
+/// assert!(matches!(g.source(), PseudoCriticalSource::Given(_)));
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum PseudoCriticalSource {
     /// From the gas gravity by a correlation (hydrocarbon part, then impurities).
@@ -27,6 +34,12 @@ pub enum PseudoCriticalSource {
 }
 
 /// How non-hydrocarbons adjust gravity-based pseudo-criticals.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::ImpurityCorrection;
+/// assert_eq!(ImpurityCorrection::default(), ImpurityCorrection::WichertAziz);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum ImpurityCorrection {
     /// The hydrocarbon part's pseudo-criticals from its own gravity, mixed with the
@@ -77,6 +90,13 @@ impl ImpurityCorrection {
 }
 
 /// A gas property that [`Gas::property`] can compute.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::{Gas, GasProperty};
+/// let v = Gas::new(0.7).unwrap().property(GasProperty::Viscosity, 2000.0, 150.0, &Default::default()).unwrap();
+/// assert!(v > 0.0);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum GasProperty {
     /// Z-factor, dimensionless.
@@ -517,16 +537,31 @@ impl Gas {
     #[inline]
     pub fn viscosity(&self, p_psia: f64, t_f: f64) -> Result<f64> {
         match self.viscosity_method {
-            ViscosityMethod::LeeGonzalezEakin => {
-                let rho = self.density(p_psia, t_f)?;
-                viscosity_lee_gonzalez_eakin(t_f, rho, self.molar_mass())
-            }
-            ViscosityMethod::CarrKobayashiBurrows => {
-                let (ppr, tpr) = self.reduced(p_psia, t_f)?;
-                let mu1 = viscosity_one_atm_carr(t_f, self.gas_sg, self.co2, self.h2s, self.n2)?;
-                Ok(mu1 * viscosity_ratio_dempsey(ppr, tpr)?)
-            }
+            ViscosityMethod::LeeGonzalezEakin => Ok(self.z_and_viscosity(p_psia, t_f)?.1),
+            ViscosityMethod::CarrKobayashiBurrows => self.viscosity_carr(p_psia, t_f),
         }
+    }
+
+    #[inline]
+    fn viscosity_carr(&self, p_psia: f64, t_f: f64) -> Result<f64> {
+        let (ppr, tpr) = self.reduced(p_psia, t_f)?;
+        let mu1 = viscosity_one_atm_carr(t_f, self.gas_sg, self.co2, self.h2s, self.n2)?;
+        Ok(mu1 * viscosity_ratio_dempsey(ppr, tpr)?)
+    }
+
+    /// Z and viscosity (cp) with one Z solve (the viscosity methods that need density use
+    /// this Z).
+    #[inline]
+    pub(crate) fn z_and_viscosity(&self, p_psia: f64, t_f: f64) -> Result<(f64, f64)> {
+        let z = self.z(p_psia, t_f)?;
+        let mu = match self.viscosity_method {
+            ViscosityMethod::LeeGonzalezEakin => {
+                let rho = gas_density(p_psia, t_f, z, self.gas_sg)?;
+                viscosity_lee_gonzalez_eakin(t_f, rho, self.molar_mass())?
+            }
+            ViscosityMethod::CarrKobayashiBurrows => self.viscosity_carr(p_psia, t_f)?,
+        };
+        Ok((z, mu))
     }
 
     /// Gas isothermal compressibility cg, 1/psi, from the analytic dZ/dp of the EOS.

@@ -12,6 +12,12 @@ use crate::error::{Error, Result, fraction, positive};
 use crate::units::AIR_MOLAR_MASS;
 
 /// Pseudo-critical temperature (degR) and pressure (psia) of a gas.
+///
+/// # Examples
+/// ```
+/// let pc = stocktank::gas::sutton(0.7).unwrap();
+/// assert!(pc.tpc_r > 300.0 && pc.ppc_psia > 600.0);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct PseudoCritical {
     /// Pseudo-critical temperature, degR.
@@ -21,6 +27,12 @@ pub struct PseudoCritical {
 }
 
 /// Correlation of pseudo-critical properties from gas specific gravity.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::GravityCorrelation;
+/// assert_eq!(GravityCorrelation::default(), GravityCorrelation::Sutton);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum GravityCorrelation {
     /// Sutton (1985), the default.
@@ -336,6 +348,12 @@ pub fn carr_kobayashi_burrows_correction(
 }
 
 /// One pure component of the Kay mixing table: molar mass and critical constants.
+///
+/// # Examples
+/// ```
+/// let c1 = stocktank::gas::COMPONENTS[3];
+/// assert_eq!(c1.name, "c1");
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Component {
     /// Short name (`"n2"`, `"co2"`, `"c1"`, ...).
@@ -354,6 +372,11 @@ pub struct Component {
 /// Critical constants and molar masses as tabulated in the GPSA Engineering Data Book
 /// (1987), Fig. 23-2 (from memory; each value is checked against CoolProp's critical point
 /// within 0.5 % in the tests).
+///
+/// # Examples
+/// ```
+/// assert_eq!(stocktank::gas::COMPONENTS[1].name, "co2");
+/// ```
 pub const COMPONENTS: [Component; 11] = [
     Component {
         name: "n2",
@@ -424,6 +447,11 @@ pub const COMPONENTS: [Component; 11] = [
 ];
 
 /// Names of the composition inputs of [`kay`], in order (the C7+ fraction last).
+///
+/// # Examples
+/// ```
+/// assert_eq!(stocktank::gas::COMPOSITION_NAMES[11], "c7plus");
+/// ```
 pub const COMPOSITION_NAMES: [&str; 12] = [
     "n2", "co2", "h2s", "c1", "c2", "c3", "ic4", "nc4", "ic5", "nc5", "c6", "c7plus",
 ];
@@ -472,6 +500,13 @@ pub fn riazi_daubert(molar_mass: f64, sg: f64) -> Result<PseudoCritical> {
 }
 
 /// A gas composition for Kay's rule: pseudo-criticals and gravity.
+///
+/// # Examples
+/// ```
+/// let mut y = [0.0; 12];
+/// y[4] = 1.0;
+/// assert!(stocktank::gas::kay(&y, 0.0, 0.0).unwrap().gas_sg > 1.0); // ethane
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct KayResult {
     /// Pseudo-critical temperature and pressure (uncorrected for CO2/H2S), degR and psia.

@@ -21,6 +21,11 @@ const GL_W: [f64; 4] = [
     0.101_228_536_290_376_3,
 ];
 /// Widest pressure sub-interval of the composite quadrature, psia.
+///
+/// # Examples
+/// ```
+/// assert_eq!(stocktank::gas::PSEUDO_PRESSURE_STEP_PSIA, 100.0);
+/// ```
 pub const PSEUDO_PRESSURE_STEP_PSIA: f64 = 100.0;
 
 impl Gas {
@@ -36,8 +41,7 @@ impl Gas {
     /// ```
     #[inline]
     pub fn pseudo_pressure_integrand(&self, p_psia: f64, t_f: f64) -> Result<f64> {
-        let z = self.z(p_psia, t_f)?;
-        let mu = self.viscosity(p_psia, t_f)?;
+        let (z, mu) = self.z_and_viscosity(p_psia, t_f)?;
         Ok(2.0 * p_psia / (mu * z))
     }
 

@@ -5,6 +5,12 @@ use crate::error::{Error, Result, fraction, positive, temperature_f};
 use crate::units::{KG_PER_LBM, M3_PER_FT3, RANKINE_OFFSET};
 
 /// Gas viscosity method.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::ViscosityMethod;
+/// assert_eq!(ViscosityMethod::default(), ViscosityMethod::LeeGonzalezEakin);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum ViscosityMethod {
     /// Lee–Gonzalez–Eakin (1966), the default.

@@ -31,13 +31,29 @@ use std::sync::OnceLock;
 
 /// Relative size of the Newton step at which the Z-factor iteration stops (the remaining
 /// error is of order its square; see the module docs).
+///
+/// # Examples
+/// ```
+/// assert!(stocktank::gas::Z_TOLERANCE * stocktank::gas::Z_TOLERANCE < 1e-15);
+/// ```
 pub const Z_TOLERANCE: f64 = 1e-8;
 /// Relative bracket width at which bisection stops.
 const BRACKET_TOLERANCE: f64 = 1e-14;
 /// Iteration limit of the safeguarded Newton solver (bisection alone needs about 50).
+///
+/// # Examples
+/// ```
+/// assert!(stocktank::gas::dak_solve(5.0, 1.5).unwrap().iterations <= stocktank::gas::MAX_ITERATIONS);
+/// ```
 pub const MAX_ITERATIONS: u32 = 100;
 /// Pseudo-reduced temperature from which both implicit equations are monotone in density
 /// (no loops, a single root) on their bracket.
+///
+/// # Examples
+/// ```
+/// // Below the threshold the solver marches to the lowest-density root.
+/// assert!(stocktank::gas::z_dak(0.9, stocktank::gas::MONOTONE_TPR - 0.05).unwrap() > 0.5);
+/// ```
 pub const MONOTONE_TPR: f64 = 1.05;
 /// Upper end of the DAK reduced-density bracket for Ppr up to [`DAK_FAST_PPR_MAX`].
 const DAK_RHO_HI: f64 = 3.5;
@@ -46,6 +62,12 @@ const DAK_RHO_HI: f64 = 3.5;
 const DAK_FAST_PPR_MAX: f64 = 300.0;
 
 /// How the Z-factor solver ended.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::{dak_solve, Termination};
+/// assert_eq!(dak_solve(1.0, 1.2).unwrap().termination, Termination::Converged);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Termination {
     /// The step fell below [`Z_TOLERANCE`] or the residual was exactly zero.
@@ -57,6 +79,12 @@ pub enum Termination {
 }
 
 /// The result of an implicit Z-factor solve, with a report of how the solver ended.
+///
+/// # Examples
+/// ```
+/// let s = stocktank::gas::dak_solve(2.0, 1.5).unwrap();
+/// assert!((s.z - 0.27 * 2.0 / (s.reduced_density * 1.5)).abs() < 1e-15);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct ZSolution {
     /// Z-factor, dimensionless.
@@ -73,6 +101,12 @@ pub struct ZSolution {
 }
 
 /// Z-factor method.
+///
+/// # Examples
+/// ```
+/// use stocktank::gas::ZMethod;
+/// assert_eq!(ZMethod::default(), ZMethod::DranchukAbouKassem);
+/// ```
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum ZMethod {
     /// Dranchuk–Abou-Kassem (1975), the default.
@@ -299,8 +333,8 @@ fn lowest_root<F: Fn(f64) -> (f64, f64) + Copy>(
 /// Functions. Prentice-Hall.
 #[inline(always)]
 fn exp_nonpositive(x: f64) -> f64 {
-    const LN2_HI: f64 = 6.931_471_803_691_238_164_9e-1;
-    const LN2_LO: f64 = 1.908_214_929_270_587_700_02e-10;
+    const LN2_HI: f64 = 6.931_471_803_691_238e-1;
+    const LN2_LO: f64 = 1.908_214_929_270_587_7e-10;
     // 1.5 * 2^52: adding it rounds to an integer held in the low mantissa bits.
     const MAGIC: f64 = 6_755_399_441_055_744.0;
     let x = x.max(-700.0);
@@ -394,22 +428,27 @@ fn papay_guess(ppr: f64, tpr: f64) -> f64 {
 }
 
 /// Grid of solved reduced densities for starting guesses: Ppr from 0 to 32 in steps of
-/// 1/8, Tpr from [`MONOTONE_TPR`] to 3.25 in steps of 1/40, stored as f32 (the guess only
-/// needs a few digits).
+/// 1/8; Tpr from [`MONOTONE_TPR`] to about 3.2, uniform in sqrt(Tpr - 1.05) (steps of 1/60);
+/// stored as f32 (the guess only needs a few digits).
 struct GuessTable {
     data: Box<[f32]>,
 }
 
-const TABLE_NP: usize = 257;
-const TABLE_NT: usize = 89;
-const TABLE_INV_DP: f64 = 8.0;
-const TABLE_INV_DT: f64 = 40.0;
+const TABLE_NP: usize = 513;
+const TABLE_NT: usize = 133;
+const TABLE_INV_DP: f64 = 16.0;
+/// Rows are uniform in w = sqrt(Tpr - 1.05), dense where Z bends most (low Tpr).
+const TABLE_INV_DT: f64 = 90.0;
+/// Tpr - 1.05 at the last row: ((TABLE_NT - 1) / TABLE_INV_DT)^2.
+const TABLE_DT_MAX: f64 =
+    ((TABLE_NT - 1) as f64 / TABLE_INV_DT) * ((TABLE_NT - 1) as f64 / TABLE_INV_DT);
 
 impl GuessTable {
     fn build(solve: impl Fn(f64, f64) -> f64) -> Self {
         let mut data = vec![0.0f32; TABLE_NP * TABLE_NT];
         for j in 0..TABLE_NT {
-            let tpr = MONOTONE_TPR + j as f64 / TABLE_INV_DT;
+            let w = j as f64 / TABLE_INV_DT;
+            let tpr = MONOTONE_TPR + w * w;
             for i in 1..TABLE_NP {
                 data[j * TABLE_NP + i] = solve(i as f64 / TABLE_INV_DP, tpr) as f32;
             }
@@ -423,8 +462,13 @@ impl GuessTable {
     #[inline(always)]
     fn guess(&self, ppr: f64, tpr: f64) -> Option<f64> {
         let u = ppr * TABLE_INV_DP;
-        let v = (tpr - MONOTONE_TPR) * TABLE_INV_DT;
-        if !(u < (TABLE_NP - 1) as f64 && v >= 0.0 && v < (TABLE_NT - 1) as f64) {
+        let dt = tpr - MONOTONE_TPR;
+        let in_grid = u < (TABLE_NP - 1) as f64 && (0.0..TABLE_DT_MAX).contains(&dt);
+        if !in_grid {
+            return None;
+        }
+        let v = dt.sqrt() * TABLE_INV_DT;
+        if v >= (TABLE_NT - 1) as f64 {
             return None;
         }
         let (i, j) = (u as usize, v as usize);

@@ -1,0 +1,142 @@
+"""Z-factor speed: stocktank (DAK and Hall-Yarborough) against a numpy-vectorised Newton
+written here, side by side in one process.
+
+Random points with Ppr in [0.2, 15] and Tpr in [1.05, 3]. The two sides alternate and the
+median of the per-round ratios is reported (the machine drifts between a fast and a
+slower state, so absolute ns/point vary; ratios are the measurement). The single-core
+figures come from a child process run with RAYON_NUM_THREADS=1 (stocktank's thread pool
+is fixed at start); the speed-up to all cores is the ratio of the two processes'
+numpy-relative ratios.
+
+Usage: python benches/bench_zfactor.py [--sizes 1e5,1e6,1e7] [--rounds 5]
+       [--methods dak,hall_yarborough]
+"""
+
+import argparse
+import os
+import subprocess
+import sys
+import time
+
+import numpy as np
+
+import stocktank as st
+
+DAK_A = [0.3265, -1.0700, -0.5339, 0.01569, -0.05165, 0.5475, -0.7361, 0.1844, 0.1056, 0.6134, 0.7210]
+
+
+def numpy_dak(ppr: np.ndarray, tpr: np.ndarray, tol: float = 1e-10, maxit: int = 50) -> np.ndarray:
+    """Newton on reduced density, vectorised over all points (start: ideal gas)."""
+    a1, a2, a3, a4, a5, a6, a7, a8, a9, a10, a11 = DAK_A
+    c1 = a1 + a2 / tpr + a3 / tpr**3 + a4 / tpr**4 + a5 / tpr**5
+    c2 = a6 + a7 / tpr + a8 / tpr**2
+    c3 = a9 * (a7 / tpr + a8 / tpr**2)
+    c4 = a10 / tpr**3
+    rho = 0.27 * ppr / tpr
+    for _ in range(maxit):
+        r2 = rho * rho
+        e = np.exp(-a11 * r2)
+        z = 1 + c1 * rho + c2 * r2 - c3 * r2 * r2 * rho + c4 * r2 * (1 + a11 * r2) * e
+        f = z - 0.27 * ppr / (rho * tpr)
+        dz = c1 + 2 * c2 * rho - 5 * c3 * r2 * r2 + 2 * c4 * rho * e * (1 + a11 * r2 - a11 * a11 * r2 * r2)
+        df = dz + 0.27 * ppr / (r2 * tpr)
+        step = f / df
+        rho = np.clip(rho - step, 1e-12, 3.5)
+        if np.max(np.abs(step) / rho) < tol:
+            break
+    return 0.27 * ppr / (rho * tpr)
+
+
+def numpy_hall_yarborough(ppr: np.ndarray, tpr: np.ndarray, tol: float = 1e-10, maxit: int = 50) -> np.ndarray:
+    t = 1.0 / tpr
+    a = 0.06125 * t * np.exp(-1.2 * (1 - t) ** 2)
+    b = t * (14.76 - 9.76 * t + 4.58 * t * t)
+    c = t * (90.7 - 242.2 * t + 42.4 * t * t)
+    d = 2.18 + 2.82 * t
+    y = np.clip(a * ppr, 1e-12, 0.9)
+    for _ in range(maxit):
+        om = 1 - y
+        f = -a * ppr + (y + y**2 + y**3 - y**4) / om**3 - b * y**2 + c * y**d
+        df = (1 + 4 * y + 4 * y**2 - 4 * y**3 + y**4) / om**4 - 2 * b * y + c * d * y ** (d - 1)
+        step = f / df
+        y = np.clip(y - step, 1e-12, 0.999)
+        if np.max(np.abs(step) / y) < tol:
+            break
+    return a * ppr / y
+
+
+def timed(f, *args) -> float:
+    t0 = time.perf_counter()
+    f(*args)
+    return time.perf_counter() - t0
+
+
+def measure(sizes, rounds: int, methods) -> list:
+    rng = np.random.default_rng(2026)
+    rows = []
+    for n in sizes:
+        ppr = rng.uniform(0.2, 15.0, n)
+        tpr = rng.uniform(1.05, 3.0, n)
+        for method, baseline in [("dak", numpy_dak), ("hall_yarborough", numpy_hall_yarborough)]:
+            if method not in methods:
+                continue
+            # Same answer first (to the baseline's tolerance).
+            ours = st.z_factor(ppr[:10000], tpr[:10000], method=method)
+            ref = baseline(ppr[:10000], tpr[:10000])
+            assert np.max(np.abs(ours / ref - 1)) < 1e-8, method
+            ratios, t_ours, t_base = [], [], []
+            for _ in range(rounds):
+                a = timed(lambda: st.z_factor(ppr, tpr, method=method))
+                b = timed(baseline, ppr, tpr)
+                t_ours.append(a)
+                t_base.append(b)
+                ratios.append(b / a)
+            rows.append(
+                dict(
+                    n=n,
+                    method=method,
+                    ours_ns=1e9 * np.median(t_ours) / n,
+                    numpy_ns=1e9 * np.median(t_base) / n,
+                    ratio=float(np.median(ratios)),
+                )
+            )
+    return rows
+
+
+def main() -> int:
+    ap = argparse.ArgumentParser()
+    ap.add_argument("--sizes", default="1e5,1e6")
+    ap.add_argument("--rounds", type=int, default=5)
+    ap.add_argument("--methods", default="dak,hall_yarborough")
+    ap.add_argument("--child", action="store_true", help=argparse.SUPPRESS)
+    args = ap.parse_args()
+    sizes = [int(float(s)) for s in args.sizes.split(",")]
+    rows = measure(sizes, args.rounds, args.methods.split(","))
+    if args.child:
+        for r in rows:
+            print(f"{r['n']} {r['method']} {r['ours_ns']} {r['numpy_ns']} {r['ratio']}")
+        return 0
+    env = dict(os.environ, RAYON_NUM_THREADS="1")
+    out = subprocess.run(
+        [sys.executable, __file__, "--child", "--sizes", args.sizes, "--rounds", str(args.rounds),
+         "--methods", args.methods],
+        env=env, capture_output=True, text=True, check=True,
+    ).stdout.split("\n")
+    single = {}
+    for line in out:
+        if line.strip():
+            n, m, o, b, r = line.split()
+            single[(int(n), m)] = (float(o), float(b), float(r))
+    cores = os.cpu_count()
+    print(f"Z-factor, Ppr 0.2-15, Tpr 1.05-3; median of {args.rounds} alternating rounds; {cores} cores")
+    print(f"{'points':>9} {'method':>16} | {'1 core ns/pt':>12} {'numpy ns/pt':>11} {'x numpy':>8} | "
+          f"{'all cores ns/pt':>15} {'x numpy':>8} | {'speed-up':>8}")
+    for r in rows:
+        o1, b1, r1 = single[(r["n"], r["method"])]
+        print(f"{r['n']:>9} {r['method']:>16} | {o1:12.1f} {b1:11.1f} {r1:8.1f} | "
+              f"{r['ours_ns']:15.1f} {r['ratio']:8.1f} | {r['ratio'] / r1:8.2f}")
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
