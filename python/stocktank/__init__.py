@@ -11,6 +11,7 @@ and the regulations and reserves-reporting rules that apply to you.
 """
 
 from . import decline, gas, material_balance, oil, relperm, units, volumetrics, water
+from . import metric  # after the domain modules: it wraps their functions
 from ._core import (
     ConvergenceError,
     InvalidArgumentError,
@@ -44,6 +45,7 @@ __all__ = [
     "decline",
     "gas",
     "material_balance",
+    "metric",
     "oil",
     "relperm",
     "units",

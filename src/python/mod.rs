@@ -17,6 +17,7 @@ mod gas;
 mod material_balance;
 mod oil;
 mod relperm;
+mod units;
 mod volumetrics;
 mod water;
 
@@ -156,5 +157,6 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     material_balance::register(m)?;
     decline::register(m)?;
     volumetrics::register(m)?;
+    units::register(m)?;
     Ok(())
 }

@@ -6,6 +6,8 @@
 
 use crate::error::{Error, Result};
 
+pub mod convert;
+
 /// Metres in one international foot (exact). NIST SP 811 (2008), Appendix B.
 pub const M_PER_FT: f64 = 0.3048;
 /// Square feet in one acre (exact, by definition of the acre). NIST SP 811 (2008), Appendix B.
