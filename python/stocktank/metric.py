@@ -12,7 +12,7 @@ How it works: :data:`TABLE` declares, per function, which argument and which res
 quantity (a *role*); each function here is generated from its line in the table, converting
 declared inputs to field units, calling the field-unit function, and converting the declared
 results back. Another unit choice: ``stocktank.units.UnitSystem(area="km2").namespace()``.
-Adding a function is one line in :data:`TABLE`. Description classes (``Gas``) get a proxy
+Adding a function is one line in :data:`TABLE`. Description classes (``Gas``, ``Oil``, ``Water``) get a proxy
 whose constructor and methods use metric units (:data:`CLASSES`): ``stocktank.metric.Gas(0.7)
 .z(p=20000.0, t=90.0)`` with kPa and degC; the field-unit object is ``.field``. Not yet
 converted: pseudo-pressure, Eg and Bg in rb/Mscf (use ``.field`` and :func:`stocktank.units
@@ -23,7 +23,9 @@ import types
 from typing import Any, Dict, List, Mapping, Tuple
 
 from . import gas as _gas
+from . import oil as _oil
 from . import volumetrics as _vol
+from . import water as _water
 from .units import METRIC, ArgSpec, UnitSystem
 
 #: function name -> (field-unit function, {argument: role or (role, metric name)}, result role(s)).
@@ -52,6 +54,23 @@ TABLE: Dict[str, Tuple[Any, Mapping[str, ArgSpec], Any]] = {
     "wichert_aziz": (_gas.wichert_aziz, {"tpc_r": ("absolute_temperature", "tpc"), "ppc_psia": ("pressure", "ppc")}, ("absolute_temperature", "pressure")),
     "recombined_gas_sg": (_gas.recombined_gas_sg, {"separator_gor": "gas_oil_ratio", "stock_tank_gor": "gas_oil_ratio", "p_sc": "pressure", "t_sc": "temperature"}, None),
     "gas_equivalent": (_gas.gas_equivalent, {"p_sc": "pressure", "t_sc": "temperature"}, "gas_oil_ratio"),
+    # oil
+    "bubble_point": (_oil.bubble_point, {"rs": "gas_oil_ratio", "temperature_f": ("temperature", "temperature")}, "pressure"),
+    "solution_gor": (_oil.solution_gor, {"p": "pressure", "temperature_f": ("temperature", "temperature")}, "gas_oil_ratio"),
+    "bo_saturated": (_oil.bo_saturated, {"rs": "gas_oil_ratio", "temperature_f": ("temperature", "temperature")}, "oil_fvf"),
+    "bo_undersaturated": (_oil.bo_undersaturated, {"p": "pressure", "pb": "pressure", "bob": "oil_fvf", "rsb": "gas_oil_ratio", "temperature_f": ("temperature", "temperature")}, "oil_fvf"),
+    "co_undersaturated": (_oil.co_undersaturated, {"p": "pressure", "rsb": "gas_oil_ratio", "temperature_f": ("temperature", "temperature")}, "compressibility"),
+    "oil_density": (_oil.oil_density, {"rs": "gas_oil_ratio", "bo": "oil_fvf", "p_sc": "pressure", "t_sc": "temperature"}, "density"),
+    "dead_oil_viscosity": (_oil.dead_oil_viscosity, {"temperature_f": ("temperature", "temperature")}, "viscosity"),
+    "live_oil_viscosity": (_oil.live_oil_viscosity, {"mu_od": "viscosity", "rs": "gas_oil_ratio"}, "viscosity"),
+    "undersaturated_oil_viscosity": (_oil.undersaturated_oil_viscosity, {"p": "pressure", "pb": "pressure", "mu_ob": "viscosity"}, "viscosity"),
+    # water (Bw in rm3/sm3 shares the oil FVF role: both are reservoir over stock-tank volume)
+    "water_bw": (_water.water_bw, {"p": "pressure", "t": "temperature", "p_sc": "pressure", "t_sc": "temperature"}, "oil_fvf"),
+    "water_density": (_water.water_density, {"p": "pressure", "t": "temperature"}, "density"),
+    "water_density_sc": (_water.water_density_sc, {}, "density"),
+    "water_rsw": (_water.water_rsw, {"p": "pressure", "t": "temperature"}, "gas_oil_ratio"),
+    "water_compressibility": (_water.water_compressibility, {"p": "pressure", "t": "temperature"}, "compressibility"),
+    "water_viscosity": (_water.water_viscosity, {"p": "pressure", "t": "temperature"}, "viscosity"),
 }
 
 #: Description classes: name -> (class, constructor arguments, {method: (arguments, result)},
@@ -70,6 +89,40 @@ CLASSES: Dict[str, Tuple[Any, Mapping[str, ArgSpec], Dict[str, Tuple[Mapping[str
             "cg": (_GAS_PT, "compressibility"),
         },
         {"tpc_r": "absolute_temperature", "ppc_psia": "pressure"},
+    ),
+    "Oil": (
+        _oil.Oil,
+        {
+            "temperature_f": ("temperature", "temperature"),
+            "gor": "gas_oil_ratio",
+            "pb": "pressure",
+            "bob": "oil_fvf",
+            "mu_ob": "viscosity",
+            "separator_p": "pressure",
+            "separator_t": "temperature",
+            "p_sc": "pressure",
+            "t_sc": "temperature",
+        },
+        {
+            "rs": ({"p": "pressure"}, "gas_oil_ratio"),
+            "bo": ({"p": "pressure"}, "oil_fvf"),
+            "viscosity": ({"p": "pressure"}, "viscosity"),
+            "bubble_point": ({}, "pressure"),
+            "rsi": ({}, "gas_oil_ratio"),
+        },
+        {"temperature_f": "temperature", "gor": "gas_oil_ratio", "pb": "pressure"},
+    ),
+    "Water": (
+        _water.Water,
+        {"p_sc": "pressure", "t_sc": "temperature"},
+        {
+            "bw": ({"p": "pressure", "t": "temperature"}, "oil_fvf"),
+            "density": ({"p": "pressure", "t": "temperature"}, "density"),
+            "viscosity": ({"p": "pressure", "t": "temperature"}, "viscosity"),
+            "compressibility": ({"p": "pressure", "t": "temperature"}, "compressibility"),
+            "rsw": ({"p": "pressure", "t": "temperature"}, "gas_oil_ratio"),
+        },
+        {},
     ),
 }
 
