@@ -31,3 +31,8 @@ pub use error::{Error, Result};
 
 #[cfg(feature = "python")]
 mod python;
+
+/// The README's Rust examples, compiled and run as doctests.
+#[cfg(doctest)]
+#[doc = include_str!("../README.md")]
+pub struct ReadmeDoctests;
