@@ -625,11 +625,11 @@ impl Gas {
         let pc = match g.source() {
             PseudoCriticalSource::Gravity(c) => format!("pseudo_critical='{}'", c.name()),
             PseudoCriticalSource::Given(pc) => {
-                format!("tpc_r={}, ppc_psia={}", pc.tpc_r, pc.ppc_psia)
+                format!("tpc_r={:?}, ppc_psia={:?}", pc.tpc_r, pc.ppc_psia)
             }
         };
         format!(
-            "Gas(gas_sg={}, co2={}, h2s={}, n2={}, {pc}, impurity_correction='{}', z_method='{}', viscosity_method='{}')",
+            "Gas(gas_sg={:?}, co2={:?}, h2s={:?}, n2={:?}, {pc}, impurity_correction='{}', z_method='{}', viscosity_method='{}')",
             g.gas_sg(),
             g.co2(),
             g.h2s(),

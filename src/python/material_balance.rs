@@ -347,21 +347,21 @@ impl Aquifer {
         match a.model {
             mb::AquiferModel::Pot | mb::AquiferModel::Schilthuis => {
                 format!(
-                    "Aquifer(model={:?}, constant={})",
+                    "Aquifer(model={:?}, constant={:?})",
                     model_name(&a.model),
                     a.constant
                 )
             }
             mb::AquiferModel::Fetkovich { tau_days } => {
                 format!(
-                    "Aquifer(model='fetkovich', constant={}, tau_days={tau_days})",
+                    "Aquifer(model='fetkovich', constant={:?}, tau_days={tau_days:?})",
                     a.constant
                 )
             }
             mb::AquiferModel::VanEverdingenHurst { td_per_day, red }
             | mb::AquiferModel::CarterTracy { td_per_day, red } => {
                 format!(
-                    "Aquifer(model={:?}, constant={}, td_per_day={td_per_day}, red={red})",
+                    "Aquifer(model={:?}, constant={:?}, td_per_day={td_per_day:?}, red={red:?})",
                     model_name(&a.model),
                     a.constant
                 )

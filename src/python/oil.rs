@@ -663,11 +663,11 @@ impl Oil {
     }
     fn __repr__(&self) -> String {
         let o = &self.0;
-        let opt = |v: Option<f64>| v.map(|x| x.to_string()).unwrap_or_else(|| "None".into());
+        let opt = |v: Option<f64>| v.map(|x| format!("{x:?}")).unwrap_or_else(|| "None".into());
         format!(
-            "Oil(api={}, gas_sg={}, temperature_f={}, gor={}, pb={}, bob={}, mu_ob={}, pb_method='{}', \
+            "Oil(api={:?}, gas_sg={:?}, temperature_f={:?}, gor={}, pb={}, bob={}, mu_ob={}, pb_method='{}', \
              bo_method='{}', co_method='{}', dead_oil_viscosity_method='{}', separator_p={}, separator_t={}, \
-             salinity_wt_pct={}, p_sc={}, t_sc={})",
+             salinity_wt_pct={:?}, p_sc={:?}, t_sc={:?})",
             o.api,
             o.gas_sg,
             o.temperature_f,

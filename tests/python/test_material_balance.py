@@ -338,7 +338,7 @@ def test_classes_pickle_repr_eq():
     assert "PvtTable(31 rows" in repr(pvt)
     a = st.Aquifer(model="carter_tracy", constant=10.0, td_per_day=0.3, red=8.0)
     assert pickle.loads(pickle.dumps(a)) == a
-    assert repr(a) == "Aquifer(model='carter_tracy', constant=10, td_per_day=0.3, red=8)"
+    assert repr(a) == "Aquifer(model='carter_tracy', constant=10.0, td_per_day=0.3, red=8.0)"
     f = st.Aquifer.fetkovich(wei_rb=1e6, j=10.0, p_initial=2500.0)
     assert f.constant == 400.0 and f.tau_days == 40.0
     with pytest.raises(AttributeError):

@@ -113,7 +113,7 @@ def test_oil_pickles_compares_prints():
     back = pickle.loads(pickle.dumps(o))
     assert back == o and back is not o
     assert back != st.Oil(api=35.0, gas_sg=0.8, temperature_f=200.0, gor=600.0)
-    assert repr(o).startswith("Oil(api=35, gas_sg=0.8, temperature_f=200, gor=600, pb=2800")
+    assert repr(o).startswith("Oil(api=35.0, gas_sg=0.8, temperature_f=200.0, gor=600.0, pb=2800.0")
     assert eval(repr(o), {"Oil": st.Oil}) == o
     with pytest.raises(st.InvalidArgumentError, match="gor"):
         st.Oil(api=35.0, gas_sg=0.8, temperature_f=200.0)
