@@ -147,7 +147,28 @@ fn source<'a>(view: &'a ArrayViewD<'a, f64>, out_shape: &[usize]) -> Source<'a> 
     Source::Strided(data, strides)
 }
 
-fn unravel(mut flat: usize, shape: &[usize], multi: &mut [usize]) {
+/// Attach to a kernel error the index of the bad element in the named argument's own array
+/// (or the output index when the error names no input; none for all-scalar inputs).
+fn locate(
+    e: Error,
+    names: &[&str],
+    shapes: &[&[usize]],
+    shape: &[usize],
+    multi: &[usize],
+) -> Error {
+    match &e {
+        Error::InvalidArgument { arg, .. } => match names.iter().position(|n| n == arg) {
+            Some(i) if !shapes[i].is_empty() => e.at_index(&own_index(shapes[i], multi)),
+            Some(_) => e,
+            None if !shape.is_empty() => e.at_index(multi),
+            None => e,
+        },
+        _ => e,
+    }
+}
+
+/// The multi-dimensional (C-order) index of flat element `flat` of an array of `shape`.
+pub(crate) fn unravel(mut flat: usize, shape: &[usize], multi: &mut [usize]) {
     for d in (0..shape.len()).rev() {
         let len = shape[d].max(1);
         multi[d] = flat % len;
@@ -287,16 +308,7 @@ where
     };
 
     if let Some((multi, e)) = first_error {
-        let e = match &e {
-            Error::InvalidArgument { arg, .. } => match names.iter().position(|n| n == arg) {
-                Some(i) if !shapes[i].is_empty() => e.at_index(&own_index(shapes[i], &multi)),
-                Some(_) => e,
-                None if !shape.is_empty() => e.at_index(&multi),
-                None => e,
-            },
-            _ => e,
-        };
-        return Err(e);
+        return Err(locate(e, &names, &shapes, &shape, &multi));
     }
     let dim = IxDyn(&shape);
     // The output length is the product of `shape` by construction, so this cannot fail.
@@ -403,16 +415,7 @@ where
             .flatten()
     };
     if let Some((multi, e)) = first_error {
-        let e = match &e {
-            Error::InvalidArgument { arg, .. } => match names.iter().position(|n| n == arg) {
-                Some(i) if !shapes[i].is_empty() => e.at_index(&own_index(shapes[i], &multi)),
-                Some(_) => e,
-                None if !shape.is_empty() => e.at_index(&multi),
-                None => e,
-            },
-            _ => e,
-        };
-        return Err(e);
+        return Err(locate(e, &names, &shapes, &shape, &multi));
     }
     // The output length is the product of `shape` by construction, so this cannot fail.
     Ok(ArrayD::from_shape_vec(IxDyn(&shape), out).expect("len == shape product"))

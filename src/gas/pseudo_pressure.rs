@@ -2,7 +2,7 @@
 
 use super::description::Gas;
 use crate::array::OnError;
-use crate::error::{Error, Index, Result, positive, temperature_f};
+use crate::error::{Error, Result, positive, temperature_f};
 use ndarray::{ArrayD, ArrayViewD};
 use rayon::prelude::*;
 
@@ -122,22 +122,8 @@ impl Gas {
                             return Err(e);
                         }
                         let mut multi = vec![0usize; shape.len()];
-                        let mut rem = k;
-                        for d in (0..shape.len()).rev() {
-                            multi[d] = rem % shape[d];
-                            rem /= shape[d];
-                        }
-                        return Err(match e {
-                            Error::InvalidArgument {
-                                arg, value, reason, ..
-                            } => Error::InvalidArgument {
-                                arg,
-                                value,
-                                reason,
-                                index: Some(Index(multi.into())),
-                            },
-                            other => other,
-                        });
+                        crate::array::unravel(k, &shape, &mut multi);
+                        return Err(e.at_index(&multi));
                     }
                 }
             }
