@@ -63,9 +63,7 @@ use super::fluid::{Oil, OilModel};
 use super::fvf::{apparent_compressibility, oil_density, total_fvf};
 use crate::array::OnError;
 use crate::error::{Error, Result};
-use crate::gas::{
-    Gas, ViscosityMethod as GasViscosityMethod, gas_density, viscosity_lee_gonzalez_eakin,
-};
+use crate::gas::{Gas, LeeGonzalezEakin, ViscosityMethod as GasViscosityMethod, gas_density};
 use crate::units::FT3_PER_BBL;
 use crate::water::Water;
 use rayon::prelude::*;
@@ -322,21 +320,26 @@ impl BlackOilTable {
             bt: Vec::with_capacity(n),
             co_below_pb: f64::NAN,
         };
-        let lge = gas.viscosity_method() == GasViscosityMethod::LeeGonzalezEakin;
-        let gas_mw = gas.molar_mass();
+        // Temperature-only parts of the gas correlations, once per table.
+        let z_column = gas.isotherm(t).z_column(&p);
+        let lge = match gas.viscosity_method() {
+            GasViscosityMethod::LeeGonzalezEakin => {
+                Some(LeeGonzalezEakin::new(t, gas.molar_mass())?)
+            }
+            _ => None,
+        };
         // Below and at Pb, along the saturated curve: dBo/dp = dBo/dRs * dRs/dp.
         let apparent_co = |q: f64, rs: f64, bo: f64, bg_rb: f64| -> Result<f64> {
             let (drs, dbo) = model.saturated_slopes(q, rs, bo)?;
             apparent_compressibility(bo, dbo, bg_rb, drs)
         };
-        for (i, &pi) in p.iter().enumerate() {
-            let z = gas.z(pi, t)?;
+        for ((i, &pi), z) in p.iter().enumerate().zip(z_column) {
+            let z = z?;
             let bg = crate::gas::bg(pi, t, z, &sc)?;
             let rho_g = gas_density(pi, t, z, gas.gas_sg())?;
-            let mu_g = if lge {
-                viscosity_lee_gonzalez_eakin(t, rho_g, gas_mw)?
-            } else {
-                gas.viscosity(pi, t)?
+            let mu_g = match &lge {
+                Some(lge) => lge.viscosity(rho_g)?,
+                None => gas.viscosity(pi, t)?,
             };
             let bg_rb = bg / FT3_PER_BBL;
             let (rs, bo, co, mu_o) = if i < pb_index {
