@@ -446,28 +446,50 @@ impl BlackOilTable {
     pub fn check(&self) -> Vec<Violation> {
         let mut v = Vec::new();
         let n = self.p.len();
+        // One cheap pass over the columns first: the row-by-row value check below (which
+        // keeps the violations in pressure order) runs only when some value is bad.
+        let positive_columns = [
+            &self.bo,
+            &self.oil_density,
+            &self.oil_viscosity,
+            &self.bg,
+            &self.z,
+            &self.gas_viscosity,
+            &self.gas_density,
+            &self.bw,
+            &self.water_viscosity,
+            &self.bt,
+        ];
+        let all_good = [&self.rs, &self.co]
+            .iter()
+            .all(|c| c.iter().all(|x| x.is_finite()))
+            && positive_columns
+                .iter()
+                .all(|c| c.iter().all(|&x| x.is_finite() && x > 0.0));
         for i in 0..n {
-            let vals = [
-                ("rs", self.rs[i], false),
-                ("bo", self.bo[i], true),
-                ("co", self.co[i], false),
-                ("oil_density", self.oil_density[i], true),
-                ("oil_viscosity", self.oil_viscosity[i], true),
-                ("bg", self.bg[i], true),
-                ("z", self.z[i], true),
-                ("gas_viscosity", self.gas_viscosity[i], true),
-                ("gas_density", self.gas_density[i], true),
-                ("bw", self.bw[i], true),
-                ("water_viscosity", self.water_viscosity[i], true),
-                ("bt", self.bt[i], true),
-            ];
-            for (name, x, must_be_positive) in vals {
-                if !x.is_finite() || (must_be_positive && x <= 0.0) {
-                    v.push(Violation {
-                        p_psia: self.p[i],
-                        rule: Rule::NonPhysicalValue,
-                        detail: format!("{name} = {x}"),
-                    });
+            if !all_good {
+                let vals = [
+                    ("rs", self.rs[i], false),
+                    ("bo", self.bo[i], true),
+                    ("co", self.co[i], false),
+                    ("oil_density", self.oil_density[i], true),
+                    ("oil_viscosity", self.oil_viscosity[i], true),
+                    ("bg", self.bg[i], true),
+                    ("z", self.z[i], true),
+                    ("gas_viscosity", self.gas_viscosity[i], true),
+                    ("gas_density", self.gas_density[i], true),
+                    ("bw", self.bw[i], true),
+                    ("water_viscosity", self.water_viscosity[i], true),
+                    ("bt", self.bt[i], true),
+                ];
+                for (name, x, must_be_positive) in vals {
+                    if !x.is_finite() || (must_be_positive && x <= 0.0) {
+                        v.push(Violation {
+                            p_psia: self.p[i],
+                            rule: Rule::NonPhysicalValue,
+                            detail: format!("{name} = {x}"),
+                        });
+                    }
                 }
             }
             if i < self.pb_index && self.co[i] <= 0.0 {
