@@ -10,7 +10,7 @@ use super::viscosity::{
     ViscosityMethod, dempsey_in_range, lee_gonzalez_eakin_in_range, viscosity_lee_gonzalez_eakin,
     viscosity_one_atm_carr, viscosity_ratio_dempsey,
 };
-use super::zfactor::{ZMethod, ZSolution, dak_solve, hall_yarborough_solve};
+use super::zfactor::{DakIsotherm, ZMethod, ZSolution, dak_solve, hall_yarborough_solve};
 use crate::array::{OnError, lift};
 use crate::error::{Error, Result, positive, temperature_f};
 use crate::units::{RANKINE_OFFSET, StandardConditions};
@@ -482,6 +482,23 @@ impl Gas {
         self.z_method.z(ppr, tpr)
     }
 
+    /// The Z-factor along the isotherm `t_f` (degF): the Tpr-only work of the solve done
+    /// once for a pressure sweep. Its `z(p)` equals [`Gas::z`]`(p, t_f)` to the last bit.
+    #[inline]
+    pub(crate) fn isotherm(&self, t_f: f64) -> GasIsotherm<'_> {
+        let dak = match (self.z_method, temperature_f("t_f", t_f)) {
+            (ZMethod::DranchukAbouKassem, Ok(t)) => {
+                DakIsotherm::new((t + RANKINE_OFFSET) / self.pc.tpc_r).ok()
+            }
+            _ => None,
+        };
+        GasIsotherm {
+            gas: self,
+            t_f,
+            dak,
+        }
+    }
+
     /// Z-factor and gas compressibility cg (1/psi) from the analytic derivative of the EOS.
     #[inline]
     fn z_cg(&self, p_psia: f64, t_f: f64) -> Result<(f64, f64)> {
@@ -676,5 +693,79 @@ impl Gas {
             }
         };
         Ok([pc, z, mu])
+    }
+}
+
+/// A gas at one temperature, for pressure sweeps (see [`Gas::isotherm`]).
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct GasIsotherm<'a> {
+    gas: &'a Gas,
+    t_f: f64,
+    dak: Option<DakIsotherm>,
+}
+
+impl GasIsotherm<'_> {
+    /// Z-factor at `p_psia` (psia), with the errors of [`Gas::z`].
+    #[inline]
+    pub(crate) fn z(&self, p_psia: f64) -> Result<f64> {
+        match &self.dak {
+            Some(d) => d.z(positive("p_psia", p_psia)? / self.gas.pc.ppc_psia),
+            None => self.gas.z(p_psia, self.t_f),
+        }
+    }
+
+    /// Z at every pressure of `p_psia` (psia): one result per pressure, each exactly that
+    /// of [`GasIsotherm::z`] (the DAK points go through the vectorised batch kernel).
+    pub(crate) fn z_column(&self, p_psia: &[f64]) -> Vec<Result<f64>> {
+        match &self.dak {
+            Some(d) => {
+                let ppc = self.gas.pc.ppc_psia;
+                let ppr: Vec<f64> = p_psia.iter().map(|&p| p / ppc).collect();
+                let mut out: Vec<Result<f64>> = p_psia.iter().map(|_| Ok(f64::NAN)).collect();
+                d.z_into(&ppr, &mut out);
+                for (o, &p) in out.iter_mut().zip(p_psia) {
+                    if let Err(e) = positive("p_psia", p) {
+                        *o = Err(e);
+                    }
+                }
+                out
+            }
+            None => p_psia.iter().map(|&p| self.z(p)).collect(),
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// The isotherm fast path (scalar and batched) gives exactly `Gas::z`, value or error,
+    /// on and off the starting-density table, for every Z method.
+    #[test]
+    fn isotherm_matches_scalar_z_exactly() {
+        let mut p: Vec<f64> = (1..=97).map(|i| 14.696 * 1.09f64.powi(i)).collect();
+        p.extend([-1.0, f64::NAN, 0.0, 50_000.0, 3000.0]);
+        for method in [
+            ZMethod::DranchukAbouKassem,
+            ZMethod::HallYarborough,
+            ZMethod::Papay,
+        ] {
+            for sg in [0.57, 0.7, 1.1] {
+                let gas = Gas::new(sg).unwrap().with_z_method(method);
+                for t_f in [-250.0, -100.0, 60.0, 200.0, 400.0, 1500.0] {
+                    let iso = gas.isotherm(t_f);
+                    let col = iso.z_column(&p);
+                    for (k, &pk) in p.iter().enumerate() {
+                        let want = gas.z(pk, t_f);
+                        // Debug text: equal values print equal (shortest round trip), and
+                        // errors carrying NaN compare too.
+                        let want = format!("{want:?}");
+                        let ctx = format!("{method:?} sg {sg} t {t_f} p {pk}");
+                        assert_eq!(format!("{:?}", iso.z(pk)), want, "{ctx}");
+                        assert_eq!(format!("{:?}", col[k]), want, "{ctx}");
+                    }
+                }
+            }
+        }
     }
 }

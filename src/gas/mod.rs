@@ -63,6 +63,7 @@ pub use pseudo_critical::{
     standing_condensate, standing_natural, sutton, wichert_aziz,
 };
 pub use pseudo_pressure::PSEUDO_PRESSURE_STEP_PSIA;
+pub(crate) use viscosity::LeeGonzalezEakin;
 pub use viscosity::{
     ViscosityMethod, dempsey_in_range, lee_gonzalez_eakin_in_range, viscosity_lee_gonzalez_eakin,
     viscosity_one_atm_carr, viscosity_ratio_dempsey,

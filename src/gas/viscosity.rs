@@ -107,11 +107,56 @@ pub fn viscosity_lee_gonzalez_eakin(
         ));
     }
     let m = positive("molar_mass", molar_mass)?;
-    let k = (9.4 + 0.02 * m) * t * t.sqrt() / (209.0 + 19.0 * m + t);
-    let x = 3.5 + 986.0 / t + 0.01 * m;
-    let y = 2.4 - 0.2 * x;
-    let rho = density_lbm_ft3 / LBM_FT3_PER_G_CC;
-    Ok(1e-4 * k * (x * rho.powf(y)).exp())
+    Ok(LeeGonzalezEakin::from_rankine(t, m).at_checked_density(density_lbm_ft3))
+}
+
+/// Lee–Gonzalez–Eakin (1966) at one fixed temperature and molar mass: K, X and Y (which do
+/// not depend on density) computed once, for pressure sweeps. Gives exactly the values of
+/// [`viscosity_lee_gonzalez_eakin`].
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct LeeGonzalezEakin {
+    k: f64,
+    x: f64,
+    y: f64,
+}
+
+impl LeeGonzalezEakin {
+    /// At `t_f` (degF) and `molar_mass` (lbm/lbmol), with the argument checks of
+    /// [`viscosity_lee_gonzalez_eakin`].
+    #[inline]
+    pub(crate) fn new(t_f: f64, molar_mass: f64) -> Result<Self> {
+        let t = temperature_f("t_f", t_f)? + RANKINE_OFFSET;
+        let m = positive("molar_mass", molar_mass)?;
+        Ok(Self::from_rankine(t, m))
+    }
+
+    #[inline(always)]
+    fn from_rankine(t: f64, m: f64) -> Self {
+        let k = (9.4 + 0.02 * m) * t * t.sqrt() / (209.0 + 19.0 * m + t);
+        let x = 3.5 + 986.0 / t + 0.01 * m;
+        let y = 2.4 - 0.2 * x;
+        LeeGonzalezEakin { k, x, y }
+    }
+
+    /// Viscosity, cp, at gas density `density_lbm_ft3` (finite, >= 0, else
+    /// [`Error::InvalidArgument`] naming `density_lbm_ft3`).
+    #[inline]
+    pub(crate) fn viscosity(&self, density_lbm_ft3: f64) -> Result<f64> {
+        if !(density_lbm_ft3 >= 0.0 && density_lbm_ft3.is_finite()) {
+            return Err(Error::invalid(
+                "density_lbm_ft3",
+                density_lbm_ft3,
+                "must be finite and >= 0",
+            ));
+        }
+        Ok(self.at_checked_density(density_lbm_ft3))
+    }
+
+    #[inline(always)]
+    fn at_checked_density(&self, density_lbm_ft3: f64) -> f64 {
+        let rho = density_lbm_ft3 / LBM_FT3_PER_G_CC;
+        1e-4 * self.k * (self.x * rho.powf(self.y)).exp()
+    }
 }
 
 /// Whether inputs lie in the Lee–Gonzalez–Eakin (1966) data range: 100 to 340 degF and

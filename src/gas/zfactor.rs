@@ -391,18 +391,27 @@ struct Dak {
     c4: f64,
 }
 
+/// The temperature-dependent coefficients of [`Dak`]: (c1, c2, c3, c4) at `t` = Tpr.
+#[inline(always)]
+fn dak_coefficients(t: f64) -> [f64; 4] {
+    let it = 1.0 / t;
+    let it2 = it * it;
+    [
+        A1 * t + A2 + A3 * it2 + A4 * it2 * it + A5 * it2 * it2,
+        A6 * t + A7 + A8 * it,
+        A9 * (A7 + A8 * it),
+        A10 * it2,
+    ]
+}
+
 impl Dak {
     #[inline(always)]
     fn new(t: f64) -> Self {
-        let it = 1.0 / t;
-        let it2 = it * it;
-        Dak {
-            t,
-            c1: A1 * t + A2 + A3 * it2 + A4 * it2 * it + A5 * it2 * it2,
-            c2: A6 * t + A7 + A8 * it,
-            c3: A9 * (A7 + A8 * it),
-            c4: A10 * it2,
-        }
+        Self::with_coefficients(t, dak_coefficients(t))
+    }
+    #[inline(always)]
+    fn with_coefficients(t: f64, [c1, c2, c3, c4]: [f64; 4]) -> Self {
+        Dak { t, c1, c2, c3, c4 }
     }
     /// (P(rho), dP/drho).
     #[inline(always)]
@@ -458,21 +467,33 @@ impl GuessTable {
         }
     }
 
-    /// Bilinear interpolation; `None` outside the grid.
+    /// The row position of `tpr` in the grid, `(j, fv)`, or `None` outside it. Depends on
+    /// Tpr only, so an isotherm computes it once.
     #[inline(always)]
-    fn guess(&self, ppr: f64, tpr: f64) -> Option<f64> {
-        let u = ppr * TABLE_INV_DP;
+    fn row(tpr: f64) -> Option<(usize, f64)> {
         let dt = tpr - MONOTONE_TPR;
-        let in_grid = u < (TABLE_NP - 1) as f64 && (0.0..TABLE_DT_MAX).contains(&dt);
-        if !in_grid {
+        if !(0.0..TABLE_DT_MAX).contains(&dt) {
             return None;
         }
         let v = dt.sqrt() * TABLE_INV_DT;
         if v >= (TABLE_NT - 1) as f64 {
             return None;
         }
-        let (i, j) = (u as usize, v as usize);
-        let (fu, fv) = (u - i as f64, v - j as f64);
+        let j = v as usize;
+        Some((j, v - j as f64))
+    }
+
+    /// Bilinear interpolation at `ppr` on the row position from [`GuessTable::row`]; `None`
+    /// outside the grid.
+    #[inline(always)]
+    fn guess_on_row(&self, ppr: f64, (j, fv): (usize, f64)) -> Option<f64> {
+        let u = ppr * TABLE_INV_DP;
+        let in_grid = u < (TABLE_NP - 1) as f64; // false for NaN
+        if !in_grid {
+            return None;
+        }
+        let i = u as usize;
+        let fu = u - i as f64;
         let k = j * TABLE_NP + i;
         let d = &self.data;
         let (a, b) = (d[k] as f64, d[k + 1] as f64);
@@ -480,6 +501,12 @@ impl GuessTable {
         let lo = a + fu * (b - a);
         let hi = c + fu * (e - c);
         Some(lo + fv * (hi - lo))
+    }
+
+    /// Bilinear interpolation; `None` outside the grid.
+    #[inline(always)]
+    fn guess(&self, ppr: f64, tpr: f64) -> Option<f64> {
+        self.guess_on_row(ppr, Self::row(tpr)?)
     }
 }
 
@@ -544,23 +571,107 @@ fn hall_yarborough_table() -> &'static GuessTable {
 #[inline]
 pub fn dak_solve(ppr: f64, tpr: f64) -> Result<ZSolution> {
     check_reduced(ppr, tpr)?;
-    let dak = Dak::new(tpr);
-    let target = 0.27 * ppr;
-    let guess = dak_table().guess(ppr, tpr);
-    if let Some(x0) = guess {
-        let ([r], [dp], [ok]) = dak_two_steps(&[tpr], &[target], &[x0]);
-        if ok {
-            return Ok(dak_solution(ppr, tpr, r, dp, 2, Termination::Converged));
+    DakIsotherm::new(tpr)?.solve(ppr)
+}
+
+/// The Dranchuk–Abou-Kassem solve at one fixed pseudo-reduced temperature: everything that
+/// depends on Tpr only (the equation's coefficients and the row of the starting-density
+/// table) is computed once, so that a pressure sweep (a table, a gas at reservoir
+/// temperature) pays per point only the guess, two Newton steps and the convergence test.
+/// [`dak_solve`] is this with a one-point isotherm: results are identical to the last bit.
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct DakIsotherm {
+    tpr: f64,
+    c: [f64; 4],
+    row: Option<(usize, f64)>,
+}
+
+impl DakIsotherm {
+    /// The isotherm at `tpr` (> 0 and finite, else [`Error::InvalidArgument`] naming `tpr`).
+    #[inline]
+    pub(crate) fn new(tpr: f64) -> Result<Self> {
+        positive("tpr", tpr)?;
+        Ok(DakIsotherm {
+            tpr,
+            c: dak_coefficients(tpr),
+            row: GuessTable::row(tpr),
+        })
+    }
+
+    /// Solve at `ppr` (> 0 and finite, else [`Error::InvalidArgument`] naming `ppr`).
+    #[inline]
+    pub(crate) fn solve(&self, ppr: f64) -> Result<ZSolution> {
+        positive("ppr", ppr)?;
+        let tpr = self.tpr;
+        let target = 0.27 * ppr;
+        let guess = match self.row {
+            Some(row) => dak_table().guess_on_row(ppr, row),
+            None => None,
+        };
+        if let Some(x0) = guess {
+            let c = self.c.map(|c| [c]);
+            let ([r], [dp], [ok]) = dak_two_steps(&[tpr], &c, &[target], &[x0]);
+            if ok {
+                return Ok(dak_solution(ppr, tpr, r, dp, 2, Termination::Converged));
+            }
+        }
+        Ok(self.solve_safeguarded(ppr, guess))
+    }
+
+    /// Z at `ppr`, with the errors of [`z_dak`].
+    #[inline]
+    pub(crate) fn z(&self, ppr: f64) -> Result<f64> {
+        let s = self.solve(ppr)?;
+        Ok(converged("dak", ppr, self.tpr, s)?.z)
+    }
+
+    /// Z at every `ppr[i]` into `out[i]` (same length), [`BATCH`] points at a time through
+    /// the vectorised two-step kernel; each result (value or error) is exactly that of
+    /// [`DakIsotherm::z`] at the same point.
+    pub(crate) fn z_into(&self, ppr: &[f64], out: &mut [Result<f64>]) {
+        debug_assert_eq!(ppr.len(), out.len());
+        let table = dak_table();
+        let tpr = [self.tpr; BATCH];
+        let c = self.c.map(|c| [c; BATCH]);
+        for (xs, os) in ppr.chunks(BATCH).zip(out.chunks_mut(BATCH)) {
+            let mut target = [0.27; BATCH];
+            let mut x0 = [0.5; BATCH];
+            let mut fast = [false; BATCH];
+            if let Some(row) = self.row {
+                for (l, &p) in xs.iter().enumerate() {
+                    if p > 0.0 && p.is_finite() {
+                        if let Some(g) = table.guess_on_row(p, row) {
+                            (target[l], x0[l], fast[l]) = (0.27 * p, g, true);
+                        }
+                    }
+                }
+            }
+            let (r, _, ok) = dak_two_steps(&tpr, &c, &target, &x0);
+            for (l, (&p, o)) in xs.iter().zip(os.iter_mut()).enumerate() {
+                *o = if fast[l] && ok[l] {
+                    Ok(0.27 * p / (r[l] * self.tpr))
+                } else {
+                    self.z(p)
+                };
+            }
         }
     }
-    let f = |r: f64| dak.eval(r);
-    let (r, dp, it, term) = if tpr >= MONOTONE_TPR && ppr <= DAK_FAST_PPR_MAX {
-        let x0 = guess.unwrap_or_else(|| 0.27 * papay_guess(ppr, tpr));
-        rtsafe(f, target, 0.0, DAK_RHO_HI, x0)
-    } else {
-        lowest_root(f, target, 0.02, 50.0)
-    };
-    Ok(dak_solution(ppr, tpr, r, dp, it, term))
+
+    /// The full safeguarded solve, for the few points off the two-step fast path.
+    #[inline(never)]
+    fn solve_safeguarded(&self, ppr: f64, guess: Option<f64>) -> ZSolution {
+        let tpr = self.tpr;
+        let target = 0.27 * ppr;
+        let dak = Dak::with_coefficients(tpr, self.c);
+        let f = |r: f64| dak.eval(r);
+        let (r, dp, it, term) = if tpr >= MONOTONE_TPR && ppr <= DAK_FAST_PPR_MAX {
+            let x0 = guess.unwrap_or_else(|| 0.27 * papay_guess(ppr, tpr));
+            rtsafe(f, target, 0.0, DAK_RHO_HI, x0)
+        } else {
+            lowest_root(f, target, 0.02, 50.0)
+        };
+        dak_solution(ppr, tpr, r, dp, it, term)
+    }
 }
 
 #[inline(always)]
@@ -584,22 +695,10 @@ fn dak_solution(ppr: f64, tpr: f64, r: f64, dp: f64, iterations: u32, t: Termina
 #[inline(always)]
 fn dak_two_steps<const L: usize>(
     tpr: &[f64; L],
+    [c1, c2, c3, c4]: &[[f64; L]; 4],
     target: &[f64; L],
     x0: &[f64; L],
 ) -> ([f64; L], [f64; L], [bool; L]) {
-    let mut c1 = [0.0; L];
-    let mut c2 = [0.0; L];
-    let mut c3 = [0.0; L];
-    let mut c4 = [0.0; L];
-    for l in 0..L {
-        let t = tpr[l];
-        let it = 1.0 / t;
-        let it2 = it * it;
-        c1[l] = A1 * t + A2 + A3 * it2 + A4 * it2 * it + A5 * it2 * it2;
-        c2[l] = A6 * t + A7 + A8 * it;
-        c3[l] = A9 * (A7 + A8 * it);
-        c4[l] = A10 * it2;
-    }
     let mut x = *x0;
     let mut dx = [0.0; L];
     let mut dp = [0.0; L];
@@ -662,7 +761,14 @@ pub fn z_dak_batch(x: &[[f64; 2]; BATCH], out: &mut [Result<f64>; BATCH]) {
         }
     }
     let target: [f64; BATCH] = std::array::from_fn(|l| 0.27 * ppr[l]);
-    let (r, _, ok) = dak_two_steps(&tpr, &target, &x0);
+    let mut c = [[0.0; BATCH]; 4];
+    for l in 0..BATCH {
+        let cl = dak_coefficients(tpr[l]);
+        for k in 0..4 {
+            c[k][l] = cl[k];
+        }
+    }
+    let (r, _, ok) = dak_two_steps(&tpr, &c, &target, &x0);
     for l in 0..BATCH {
         out[l] = if fast[l] && ok[l] {
             Ok(0.27 * ppr[l] / (r[l] * tpr[l]))

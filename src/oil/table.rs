@@ -63,9 +63,7 @@ use super::fluid::{Oil, OilModel};
 use super::fvf::{apparent_compressibility, oil_density, total_fvf};
 use crate::array::OnError;
 use crate::error::{Error, Result};
-use crate::gas::{
-    Gas, ViscosityMethod as GasViscosityMethod, gas_density, viscosity_lee_gonzalez_eakin,
-};
+use crate::gas::{Gas, LeeGonzalezEakin, ViscosityMethod as GasViscosityMethod, gas_density};
 use crate::units::FT3_PER_BBL;
 use crate::water::Water;
 use rayon::prelude::*;
@@ -322,21 +320,26 @@ impl BlackOilTable {
             bt: Vec::with_capacity(n),
             co_below_pb: f64::NAN,
         };
-        let lge = gas.viscosity_method() == GasViscosityMethod::LeeGonzalezEakin;
-        let gas_mw = gas.molar_mass();
+        // Temperature-only parts of the gas correlations, once per table.
+        let z_column = gas.isotherm(t).z_column(&p);
+        let lge = match gas.viscosity_method() {
+            GasViscosityMethod::LeeGonzalezEakin => {
+                Some(LeeGonzalezEakin::new(t, gas.molar_mass())?)
+            }
+            _ => None,
+        };
         // Below and at Pb, along the saturated curve: dBo/dp = dBo/dRs * dRs/dp.
         let apparent_co = |q: f64, rs: f64, bo: f64, bg_rb: f64| -> Result<f64> {
             let (drs, dbo) = model.saturated_slopes(q, rs, bo)?;
             apparent_compressibility(bo, dbo, bg_rb, drs)
         };
-        for (i, &pi) in p.iter().enumerate() {
-            let z = gas.z(pi, t)?;
+        for ((i, &pi), z) in p.iter().enumerate().zip(z_column) {
+            let z = z?;
             let bg = crate::gas::bg(pi, t, z, &sc)?;
             let rho_g = gas_density(pi, t, z, gas.gas_sg())?;
-            let mu_g = if lge {
-                viscosity_lee_gonzalez_eakin(t, rho_g, gas_mw)?
-            } else {
-                gas.viscosity(pi, t)?
+            let mu_g = match &lge {
+                Some(lge) => lge.viscosity(rho_g)?,
+                None => gas.viscosity(pi, t)?,
             };
             let bg_rb = bg / FT3_PER_BBL;
             let (rs, bo, co, mu_o) = if i < pb_index {
@@ -443,28 +446,50 @@ impl BlackOilTable {
     pub fn check(&self) -> Vec<Violation> {
         let mut v = Vec::new();
         let n = self.p.len();
+        // One cheap pass over the columns first: the row-by-row value check below (which
+        // keeps the violations in pressure order) runs only when some value is bad.
+        let positive_columns = [
+            &self.bo,
+            &self.oil_density,
+            &self.oil_viscosity,
+            &self.bg,
+            &self.z,
+            &self.gas_viscosity,
+            &self.gas_density,
+            &self.bw,
+            &self.water_viscosity,
+            &self.bt,
+        ];
+        let all_good = [&self.rs, &self.co]
+            .iter()
+            .all(|c| c.iter().all(|x| x.is_finite()))
+            && positive_columns
+                .iter()
+                .all(|c| c.iter().all(|&x| x.is_finite() && x > 0.0));
         for i in 0..n {
-            let vals = [
-                ("rs", self.rs[i], false),
-                ("bo", self.bo[i], true),
-                ("co", self.co[i], false),
-                ("oil_density", self.oil_density[i], true),
-                ("oil_viscosity", self.oil_viscosity[i], true),
-                ("bg", self.bg[i], true),
-                ("z", self.z[i], true),
-                ("gas_viscosity", self.gas_viscosity[i], true),
-                ("gas_density", self.gas_density[i], true),
-                ("bw", self.bw[i], true),
-                ("water_viscosity", self.water_viscosity[i], true),
-                ("bt", self.bt[i], true),
-            ];
-            for (name, x, must_be_positive) in vals {
-                if !x.is_finite() || (must_be_positive && x <= 0.0) {
-                    v.push(Violation {
-                        p_psia: self.p[i],
-                        rule: Rule::NonPhysicalValue,
-                        detail: format!("{name} = {x}"),
-                    });
+            if !all_good {
+                let vals = [
+                    ("rs", self.rs[i], false),
+                    ("bo", self.bo[i], true),
+                    ("co", self.co[i], false),
+                    ("oil_density", self.oil_density[i], true),
+                    ("oil_viscosity", self.oil_viscosity[i], true),
+                    ("bg", self.bg[i], true),
+                    ("z", self.z[i], true),
+                    ("gas_viscosity", self.gas_viscosity[i], true),
+                    ("gas_density", self.gas_density[i], true),
+                    ("bw", self.bw[i], true),
+                    ("water_viscosity", self.water_viscosity[i], true),
+                    ("bt", self.bt[i], true),
+                ];
+                for (name, x, must_be_positive) in vals {
+                    if !x.is_finite() || (must_be_positive && x <= 0.0) {
+                        v.push(Violation {
+                            p_psia: self.p[i],
+                            rule: Rule::NonPhysicalValue,
+                            detail: format!("{name} = {x}"),
+                        });
+                    }
                 }
             }
             if i < self.pb_index && self.co[i] <= 0.0 {
