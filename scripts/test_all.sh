@@ -28,6 +28,9 @@ cargo clippy --all-targets --features python -- -D warnings
 step "cargo test (core, no Python)"
 cargo test --no-default-features
 
+step "cargo doc (no warnings allowed)"
+RUSTDOCFLAGS="-D warnings" cargo doc --no-deps --no-default-features
+
 step "the core's dependency tree has no Python"
 if cargo tree --no-default-features -e normal,build --prefix none | grep -E '^(pyo3|numpy)[ -]'; then
   echo "FAIL: pyo3/numpy found in the no-default-features dependency tree" >&2

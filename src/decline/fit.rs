@@ -757,7 +757,7 @@ fn percentile_sorted(v: &[f64], p: f64) -> f64 {
 
 /// Fit an Arps decline to one well's production history, robustly.
 ///
-/// See the [module documentation](self) for the method.
+/// See the module documentation of `stocktank::decline` (fitting section) for the method.
 ///
 /// # Arguments
 /// - `t`: record times, days on any fixed origin (e.g. days since 1970-01-01); any order.

@@ -21,7 +21,7 @@ const M2_PER_MD: f64 = 9.869_233e-16;
 const PA_S_PER_CP: f64 = 1e-3;
 /// Seconds per day (exact).
 const S_PER_DAY: f64 = 86_400.0;
-/// Darcy's law in field units: q [bbl/d] = DARCY * k [md] A [ft2] dp [psi] / (mu [cp] L [ft]),
+/// Darcy's law in field units: q (bbl/d) = DARCY * k (md) A (ft2) dp (psi) / (mu (cp) L (ft)),
 /// about 0.001127 (derived from the SI definitions).
 pub const DARCY_FIELD: f64 =
     M2_PER_MD * (M_PER_FT * M_PER_FT) * PA_PER_PSI / (PA_S_PER_CP * M_PER_FT) * S_PER_DAY

@@ -272,7 +272,7 @@ pub fn unit(arg: &'static str, name: &str) -> Result<UnitMap> {
     })
 }
 
-/// Every unit name known to [`unit`], comma separated.
+/// Every unit name known to [`unit()`], comma separated.
 pub const ALL_UNITS: &str = "psia, psi, psig, Pa, kPa, kPag, MPa, bar, barg, atm, degF, degR, degC, K, \
 m3, sm3, rm3, bbl, STB, rb, MSTB, MMSTB, ft3, scf, rcf, Mscf, MMscf, Bscf, acre-ft, e3m3, e6m3, \
 scf/STB, Mscf/STB, sm3/sm3, rb/STB, rm3/sm3, rcf/scf, rb/scf, rb/Mscf, m3/m3, lbm/ft3, kg/m3, g/cm3, \
