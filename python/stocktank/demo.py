@@ -303,8 +303,9 @@ def _report(field: Dict[str, Any], folder: pathlib.Path, r: Dict[str, Any]) -> p
         "## Decline and remaining volumes",
         f"- {dec['fitted']} of {dec['wells']} wells fitted (Arps, robust loss, bounds on b and D).",
         f"- Produced to date: {_fmt(dec['produced_stb'], 'STB')}; EUR of the fitted wells "
-        f"{_fmt(dec['eur_stb'], 'STB')} (sum of per-well bootstrap P90 {_fmt(dec['eur_p90_stb'], 'STB')}, "
-        f"P10 {_fmt(dec['eur_p10_stb'], 'STB')}); remaining {_fmt(dec['remaining_stb'], 'STB')} to the economic limit of "
+        f"{_fmt(dec['eur_stb'], 'STB')} (arithmetic sums of the per-well bootstrap P90 and P10: "
+        f"{_fmt(dec['eur_p90_stb'], 'STB')} and {_fmt(dec['eur_p10_stb'], 'STB')}; summed percentiles are not the "
+        f"field's percentiles: with independent wells the field range is narrower); remaining {_fmt(dec['remaining_stb'], 'STB')} to the economic limit of "
         f"{field['economic_limit_stb_d']} STB/d per well, hyperbolic switching to "
         f"{field['terminal_decline_nominal_per_year']:.2f}/year terminal exponential decline.",
     ]
