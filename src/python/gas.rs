@@ -2,36 +2,15 @@
 //! releases the GIL and calls a core array function (or a scalar kernel lifted by
 //! [`crate::array::lift`]).
 
-use super::{In, call, call_multi, on_error};
+use super::{In, call, call_bool, call_multi, on_error};
 use crate::array::{OnError, lift};
 use crate::gas::{
     self as core, Gas as CoreGas, GasProperty, GravityCorrelation, ImpurityCorrection,
     PseudoCriticalSource, ViscosityMethod, ZMethod,
 };
 use crate::units::StandardConditions;
-use ndarray::{ArrayD, ArrayViewD};
-use numpy::{IntoPyArray, PyUntypedArrayMethods};
 use pyo3::prelude::*;
 use pyo3::types::{PyDict, PyTuple};
-
-/// Like `call`, for functions returning a boolean array (validity checks).
-fn call_bool<const N: usize, F>(py: Python<'_>, inputs: [&In<'_>; N], f: F) -> PyResult<Py<PyAny>>
-where
-    F: for<'a> FnOnce([ArrayViewD<'a, f64>; N]) -> crate::Result<ArrayD<bool>> + Send,
-{
-    let scalar = inputs.iter().all(|a| a.ndim() == 0);
-    let views = inputs.map(|a| a.as_array());
-    let out = py.detach(move || f(views))?;
-    if scalar && out.len() == 1 {
-        let v = *out.iter().next().expect("one element");
-        Ok(pyo3::types::PyBool::new(py, v)
-            .to_owned()
-            .into_any()
-            .unbind())
-    } else {
-        Ok(out.into_pyarray(py).into_any().unbind())
-    }
-}
 
 /// An optional array-like argument, or a constant.
 fn or_const<'py>(py: Python<'py>, a: Option<In<'py>>, v: f64) -> PyResult<In<'py>> {

@@ -119,6 +119,30 @@ where
     to_py(py, out, scalar)
 }
 
+/// As [`call`] for validity checks: a Python bool for all-scalar inputs, else a numpy bool
+/// array.
+pub(crate) fn call_bool<const N: usize, F>(
+    py: Python<'_>,
+    inputs: [&In<'_>; N],
+    f: F,
+) -> PyResult<Py<PyAny>>
+where
+    F: for<'a> FnOnce([ArrayViewD<'a, f64>; N]) -> crate::Result<ArrayD<bool>> + Send,
+{
+    let scalar = inputs.iter().all(|a| a.ndim() == 0);
+    let views = inputs.map(|a| a.as_array());
+    let out = py.detach(move || f(views))?;
+    if scalar && out.len() == 1 {
+        let v = *out.iter().next().expect("one element");
+        Ok(pyo3::types::PyBool::new(py, v)
+            .to_owned()
+            .into_any()
+            .unbind())
+    } else {
+        Ok(out.into_pyarray(py).into_any().unbind())
+    }
+}
+
 /// As [`call`] for functions with `M` outputs; returns a tuple.
 #[allow(dead_code)] // used by the domain bindings as they land
 pub(crate) fn call_multi<const N: usize, const M: usize, F>(

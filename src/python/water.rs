@@ -1,31 +1,12 @@
 //! Python bindings of [`crate::water`]: the `Water` description class and the free
 //! functions. Conversion only: every computation is a core kernel through the one lift.
 
-use super::{In, call, on_error};
+use super::{In, call, call_bool, on_error};
 use crate::array::lift;
 use crate::units::StandardConditions;
 use crate::water::{self as core, Property, ViscosityMethod};
-use ndarray::{ArrayD, ArrayViewD};
-use numpy::{IntoPyArray, PyUntypedArrayMethods};
 use pyo3::prelude::*;
-use pyo3::types::{PyBool, PyDict, PyTuple};
-
-/// As [`super::call`] for validity checks: a Python bool for all-scalar inputs, else a
-/// numpy bool array.
-fn call_bool<const N: usize, F>(py: Python<'_>, inputs: [&In<'_>; N], f: F) -> PyResult<Py<PyAny>>
-where
-    F: for<'a> FnOnce([ArrayViewD<'a, f64>; N]) -> crate::Result<ArrayD<bool>> + Send,
-{
-    let scalar = inputs.iter().all(|a| a.ndim() == 0);
-    let views = inputs.map(|a| a.as_array());
-    let out = py.detach(move || f(views))?;
-    if scalar && out.len() == 1 {
-        let v = *out.iter().next().expect("one element");
-        Ok(PyBool::new(py, v).to_owned().into_any().unbind())
-    } else {
-        Ok(out.into_pyarray(py).into_any().unbind())
-    }
-}
+use pyo3::types::{PyDict, PyTuple};
 
 fn sc(p_sc: f64, t_sc: f64) -> PyResult<StandardConditions> {
     Ok(StandardConditions::new(p_sc, t_sc)?)
