@@ -262,6 +262,8 @@ where
     let shape = broadcast_shape(&names, &shapes)?;
     let total: usize = shape.iter().product();
     let sources: [Source<'_>; N] = inputs.each_ref().map(|v| source(v, &shape));
+    // The multi-index is only read by strided (broadcast) sources; an error recomputes it.
+    let strided = sources.iter().any(|s| matches!(s, Source::Strided(..)));
     let mut outs: [Vec<f64>; M] = std::array::from_fn(|_| vec![0.0; total]);
 
     let run = |start: usize, mut chunk: [&mut [f64]; M]| -> Option<(Vec<usize>, Error)> {
@@ -278,14 +280,19 @@ where
                     Ok(y) => y,
                     Err(e) => match on_error {
                         OnError::Coerce => [f64::NAN; M],
-                        OnError::Raise => return Some((multi, e)),
+                        OnError::Raise => {
+                            unravel(flat, &shape, &mut multi);
+                            return Some((multi, e));
+                        }
                     },
                 }
             };
             for (out, v) in chunk.iter_mut().zip(y) {
                 out[k] = v;
             }
-            advance(&mut multi, &shape);
+            if strided {
+                advance(&mut multi, &shape);
+            }
         }
         None
     };
@@ -323,14 +330,17 @@ where
 /// ```
 pub const BATCH: usize = 8;
 
-/// As [`lift`], but the kernel receives [`BATCH`] elements at a time, so that it can run
-/// independent iterations side by side (instruction-level parallelism, SIMD lanes). Same
+/// As [`lift`], but a fast kernel receives [`BATCH`] elements at a time, so that it can run
+/// independent iterations side by side (instruction-level parallelism, SIMD lanes), and a
+/// scalar kernel (the reference) takes every element the fast one leaves. Same
 /// broadcasting, NaN, error-index, raise/coerce and parallel rules as [`lift`].
 ///
-/// The kernel gets the gathered inputs `xs` and writes one result per element into `ys`.
-/// In the last batch of a chunk the unused slots are filled with copies of the batch's
-/// first element and their results are discarded. Results for elements with a NaN input
-/// are replaced by NaN (the kernel must still not panic on them).
+/// `batch(xs, ys)` gets the gathered inputs `xs`, writes values into `ys` and returns, per
+/// element, whether its value is final; for the others (points off its fast path, invalid
+/// inputs) `scalar` is called, and its result or error is used. A final value must be
+/// exactly what `scalar` would return. In the last batch of a chunk the unused slots are
+/// filled with copies of the batch's first element and their results are discarded.
+/// Elements with a NaN input give NaN (the kernels must still not panic on them).
 ///
 /// # Errors
 /// As [`lift`].
@@ -340,28 +350,37 @@ pub const BATCH: usize = 8;
 /// use ndarray::arr1;
 /// use stocktank::array::{lift_batched, OnError, BATCH};
 /// use stocktank::error::positive;
-/// let x = arr1(&[1.0, 2.0, 3.0]).into_dyn();
-/// let out = lift_batched(["x"], [x.view()], OnError::Raise, |xs: &[[f64; 1]; BATCH], ys: &mut [stocktank::Result<f64>; BATCH]| {
-///     for (x, y) in xs.iter().zip(ys.iter_mut()) {
-///         *y = positive("x", x[0]).map(|v| 2.0 * v);
-///     }
-/// })
-/// .unwrap();
-/// assert_eq!(out.as_slice().unwrap(), &[2.0, 4.0, 6.0]);
+/// let x = arr1(&[1.0, 2.0, -3.0]).into_dyn();
+/// // Fast path for positive inputs; the scalar kernel reports the error.
+/// let batch = |xs: &[[f64; 1]; BATCH], ys: &mut [f64; BATCH]| -> [bool; BATCH] {
+///     std::array::from_fn(|l| {
+///         ys[l] = 2.0 * xs[l][0];
+///         xs[l][0] > 0.0
+///     })
+/// };
+/// let scalar = |[x]: [f64; 1]| positive("x", x).map(|v| 2.0 * v);
+/// let out = lift_batched(["x"], [x.view()], OnError::Coerce, batch, scalar).unwrap();
+/// assert_eq!(out[1], 4.0);
+/// assert!(out[2].is_nan());
+/// assert!(lift_batched(["x"], [x.view()], OnError::Raise, batch, scalar).is_err());
 /// ```
-pub fn lift_batched<const N: usize, F>(
+pub fn lift_batched<const N: usize, B, S>(
     names: [&'static str; N],
     inputs: [ArrayViewD<'_, f64>; N],
     on_error: OnError,
-    f: F,
+    batch: B,
+    scalar: S,
 ) -> Result<ArrayD<f64>>
 where
-    F: Fn(&[[f64; N]; BATCH], &mut [Result<f64>; BATCH]) + Sync,
+    B: Fn(&[[f64; N]; BATCH], &mut [f64; BATCH]) -> [bool; BATCH] + Sync,
+    S: Fn([f64; N]) -> Result<f64> + Sync,
 {
     let shapes: [&[usize]; N] = inputs.each_ref().map(|v| v.shape());
     let shape = broadcast_shape(&names, &shapes)?;
     let total: usize = shape.iter().product();
     let sources: [Source<'_>; N] = inputs.each_ref().map(|v| source(v, &shape));
+    // The multi-index is only read by strided (broadcast) sources; an error recomputes it.
+    let strided = sources.iter().any(|s| matches!(s, Source::Strided(..)));
     let mut out = vec![0.0; total];
 
     let run = |start: usize, chunk: &mut [f64]| -> Option<(Vec<usize>, Error)> {
@@ -372,22 +391,24 @@ where
         while k0 < len {
             let m = BATCH.min(len - k0);
             let mut xs = [[0.0; N]; BATCH];
-            for x in xs.iter_mut().take(m) {
-                *x = std::array::from_fn(|i| sources[i].get(start + k0, &multi));
-                k0 += 1;
-                advance(&mut multi, &shape);
+            for (j, x) in xs.iter_mut().take(m).enumerate() {
+                *x = std::array::from_fn(|i| sources[i].get(start + k0 + j, &multi));
+                if strided {
+                    advance(&mut multi, &shape);
+                }
             }
-            k0 -= m;
             for j in m..BATCH {
                 xs[j] = xs[0];
             }
-            let mut ys: [Result<f64>; BATCH] = std::array::from_fn(|_| Ok(0.0));
-            f(&xs, &mut ys);
-            for (j, y) in ys.into_iter().enumerate().take(m) {
+            let mut ys = [0.0; BATCH];
+            let done = batch(&xs, &mut ys);
+            for j in 0..m {
                 chunk[k0 + j] = if xs[j].iter().any(|v| v.is_nan()) {
                     f64::NAN
+                } else if done[j] {
+                    ys[j]
                 } else {
-                    match y {
+                    match scalar(xs[j]) {
                         Ok(v) => v,
                         Err(e) => match on_error {
                             OnError::Coerce => f64::NAN,
@@ -500,11 +521,14 @@ mod tests {
 
     #[test]
     fn batched_matches_lift() {
-        let batch = |xs: &[[f64; 2]; BATCH], ys: &mut [Result<f64>; BATCH]| {
-            for (x, y) in xs.iter().zip(ys.iter_mut()) {
-                *y = positive("a", x[0]).map(|a| a * x[1]);
-            }
+        // Fast path only for a > 1.5, so that both the batch and the scalar kernel are used.
+        let batch = |xs: &[[f64; 2]; BATCH], ys: &mut [f64; BATCH]| -> [bool; BATCH] {
+            std::array::from_fn(|l| {
+                ys[l] = xs[l][0] * xs[l][1];
+                xs[l][0] > 1.5
+            })
         };
+        let scalar = |[a, b]: [f64; 2]| Ok(positive("a", a)? * b);
         for n in [0, 1, 7, 8, 9, 100, 3 * PARALLEL_THRESHOLD + 5] {
             let a = Array::linspace(1.0, 2.0, n)
                 .into_shape_with_order((n, 1))
@@ -513,7 +537,14 @@ mod tests {
             let b = arr1(&[1.0, f64::NAN, 3.0]).into_dyn();
             let f = |[a, b]: [f64; 2]| Ok(positive("a", a)? * b);
             let x = lift(["a", "b"], [a.view(), b.view()], OnError::Raise, f).unwrap();
-            let y = lift_batched(["a", "b"], [a.view(), b.view()], OnError::Raise, batch).unwrap();
+            let y = lift_batched(
+                ["a", "b"],
+                [a.view(), b.view()],
+                OnError::Raise,
+                batch,
+                scalar,
+            )
+            .unwrap();
             assert_eq!(x.shape(), y.shape());
             assert!(
                 x.iter()
@@ -524,13 +555,26 @@ mod tests {
         let mut a = Array::linspace(1.0, 2.0, 3 * PARALLEL_THRESHOLD).into_dyn();
         a[[PARALLEL_THRESHOLD + 3]] = -1.0;
         let one = arr1(&[1.0]).into_dyn();
-        let err =
-            lift_batched(["a", "b"], [a.view(), one.view()], OnError::Raise, batch).unwrap_err();
+        let err = lift_batched(
+            ["a", "b"],
+            [a.view(), one.view()],
+            OnError::Raise,
+            batch,
+            scalar,
+        )
+        .unwrap_err();
         assert_eq!(
             err,
             Error::invalid("a", -1.0, "must be finite and > 0").at_index(&[PARALLEL_THRESHOLD + 3])
         );
-        let out = lift_batched(["a", "b"], [a.view(), one.view()], OnError::Coerce, batch).unwrap();
+        let out = lift_batched(
+            ["a", "b"],
+            [a.view(), one.view()],
+            OnError::Coerce,
+            batch,
+            scalar,
+        )
+        .unwrap();
         assert!(out[[PARALLEL_THRESHOLD + 3]].is_nan());
     }
 

@@ -13,7 +13,7 @@
 //! The results are screening estimates. Defer to measured laboratory PVT data, licensed
 //! engineers, and the regulations and reserves-reporting rules that apply to you.
 #![deny(missing_docs)]
-#![forbid(unsafe_code)]
+#![deny(unsafe_code)]
 
 pub mod array;
 pub mod error;
@@ -26,6 +26,8 @@ pub mod oil;
 pub mod relperm;
 pub mod volumetrics;
 pub mod water;
+
+mod simd;
 
 pub use error::{Error, Result};
 

@@ -49,6 +49,7 @@ pub fn z_factor_array(
             [ppr, tpr],
             on_error,
             super::zfactor::z_dak_batch,
+            |[p, t]| super::zfactor::z_dak(p, t),
         ),
         _ => lift(["ppr", "tpr"], [ppr, tpr], on_error, |[p, t]| {
             method.z(p, t)

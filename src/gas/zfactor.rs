@@ -438,7 +438,9 @@ fn papay_guess(ppr: f64, tpr: f64) -> f64 {
 
 /// Grid of solved reduced densities for starting guesses: Ppr from 0 to 32 in steps of
 /// 1/8; Tpr from [`MONOTONE_TPR`] to about 3.2, uniform in sqrt(Tpr - 1.05) (steps of 1/60);
-/// stored as f32 (the guess only needs a few digits).
+/// stored as f32 (the guess only needs a few digits). Rows are stored pairwise interleaved
+/// (`data[2 (j NP + i) + {0, 1}]` = node (i, j), node (i, j + 1)), so that the four nodes of
+/// a cell are 16 adjacent bytes: one load, usually one cache line, per guess.
 struct GuessTable {
     data: Box<[f32]>,
 }
@@ -462,8 +464,16 @@ impl GuessTable {
                 data[j * TABLE_NP + i] = solve(i as f64 / TABLE_INV_DP, tpr) as f32;
             }
         }
+        let mut pairs = vec![0.0f32; 2 * TABLE_NP * (TABLE_NT - 1)];
+        for j in 0..TABLE_NT - 1 {
+            for i in 0..TABLE_NP {
+                let k = j * TABLE_NP + i;
+                pairs[2 * k] = data[k];
+                pairs[2 * k + 1] = data[k + TABLE_NP];
+            }
+        }
         GuessTable {
-            data: data.into_boxed_slice(),
+            data: pairs.into_boxed_slice(),
         }
     }
 
@@ -493,14 +503,20 @@ impl GuessTable {
             return None;
         }
         let i = u as usize;
-        let fu = u - i as f64;
-        let k = j * TABLE_NP + i;
-        let d = &self.data;
-        let (a, b) = (d[k] as f64, d[k + 1] as f64);
-        let (c, e) = (d[k + TABLE_NP] as f64, d[k + TABLE_NP + 1] as f64);
+        Some(self.interpolate(j * TABLE_NP + i, u - i as f64, fv))
+    }
+
+    /// Bilinear interpolation in the cell whose lower-left node is `k`, at fractions `fu`
+    /// (along Ppr) and `fv` (along the row coordinate).
+    #[inline(always)]
+    fn interpolate(&self, k: usize, fu: f64, fv: f64) -> f64 {
+        let q: [f32; 4] = self.data[2 * k..2 * k + 4]
+            .try_into()
+            .unwrap_or([f32::NAN; 4]);
+        let [a, c, b, e] = q.map(f64::from);
         let lo = a + fu * (b - a);
         let hi = c + fu * (e - c);
-        Some(lo + fv * (hi - lo))
+        lo + fv * (hi - lo)
     }
 
     /// Bilinear interpolation; `None` outside the grid.
@@ -610,9 +626,9 @@ impl DakIsotherm {
         };
         if let Some(x0) = guess {
             let c = self.c.map(|c| [c]);
-            let ([r], [dp], [ok]) = dak_two_steps(&[tpr], &c, &[target], &[x0]);
-            if ok {
-                return Ok(dak_solution(ppr, tpr, r, dp, 2, Termination::Converged));
+            let ([r], [dp], [it]) = dak_fast(&[tpr], &c, &[target], &[x0]);
+            if it > 0 {
+                return Ok(dak_solution(ppr, tpr, r, dp, it, Termination::Converged));
             }
         }
         Ok(self.solve_safeguarded(ppr, guess))
@@ -626,35 +642,11 @@ impl DakIsotherm {
     }
 
     /// Z at every `ppr[i]` into `out[i]` (same length), [`BATCH`] points at a time through
-    /// the vectorised two-step kernel; each result (value or error) is exactly that of
-    /// [`DakIsotherm::z`] at the same point.
+    /// the vectorised fast path (AVX2 when the processor has it, see [`crate::simd`]);
+    /// each result (value or error) is exactly that of [`DakIsotherm::z`] at the same point.
     pub(crate) fn z_into(&self, ppr: &[f64], out: &mut [Result<f64>]) {
         debug_assert_eq!(ppr.len(), out.len());
-        let table = dak_table();
-        let tpr = [self.tpr; BATCH];
-        let c = self.c.map(|c| [c; BATCH]);
-        for (xs, os) in ppr.chunks(BATCH).zip(out.chunks_mut(BATCH)) {
-            let mut target = [0.27; BATCH];
-            let mut x0 = [0.5; BATCH];
-            let mut fast = [false; BATCH];
-            if let Some(row) = self.row {
-                for (l, &p) in xs.iter().enumerate() {
-                    if p > 0.0 && p.is_finite() {
-                        if let Some(g) = table.guess_on_row(p, row) {
-                            (target[l], x0[l], fast[l]) = (0.27 * p, g, true);
-                        }
-                    }
-                }
-            }
-            let (r, _, ok) = dak_two_steps(&tpr, &c, &target, &x0);
-            for (l, (&p, o)) in xs.iter().zip(os.iter_mut()).enumerate() {
-                *o = if fast[l] && ok[l] {
-                    Ok(0.27 * p / (r[l] * self.tpr))
-                } else {
-                    self.z(p)
-                };
-            }
-        }
+        dak_isotherm_into(self, ppr, out)
     }
 
     /// The full safeguarded solve, for the few points off the two-step fast path.
@@ -685,25 +677,25 @@ fn dak_solution(ppr: f64, tpr: f64, r: f64, dp: f64, iterations: u32, t: Termina
     }
 }
 
-/// The fast path of the DAK solve for `L` points side by side: two plain Newton steps
-/// from the table guesses, then the convergence test of the safeguarded solver (the second
-/// step at most [`Z_TOLERANCE`] relative, both iterates inside the bracket, P increasing).
+/// `steps` plain Newton steps on the DAK equation for `L` points side by side from `x0`,
+/// with the convergence test of the safeguarded solver: every iterate inside the bracket
+/// `(0, DAK_RHO_HI)` with P increasing, and the last step at most [`Z_TOLERANCE`] relative.
 /// Written as element-wise loops over lanes without branches, so that the compiler can
-/// vectorise them; each lane does exactly the operations of the one-lane call, so the
-/// scalar kernel (`L = 1`) and the batch kernel give identical results.
-/// Returns (rho_r, dP/drho at the second iterate, converged) per lane.
+/// vectorise them; each lane does exactly the operations of the one-lane call.
+/// Returns (rho_r, dP/drho at the last iterate, converged) per lane.
 #[inline(always)]
-fn dak_two_steps<const L: usize>(
+fn dak_newton<const L: usize>(
     tpr: &[f64; L],
     [c1, c2, c3, c4]: &[[f64; L]; 4],
     target: &[f64; L],
     x0: &[f64; L],
+    steps: usize,
 ) -> ([f64; L], [f64; L], [bool; L]) {
     let mut x = *x0;
     let mut dx = [0.0; L];
     let mut dp = [0.0; L];
     let mut ok = [true; L];
-    for _ in 0..2 {
+    for _ in 0..steps {
         for l in 0..L {
             let r = x[l];
             let r2 = r * r;
@@ -726,55 +718,188 @@ fn dak_two_steps<const L: usize>(
     (x, dp, ok)
 }
 
-/// Z by Dranchuk–Abou-Kassem for [`crate::array::BATCH`] points at once: the batch kernel
-/// of [`crate::gas::z_factor_array`]. Every element gives exactly the result of [`z_dak`]
-/// (the same operations, run side by side); points off the fast path go through
-/// [`z_dak`] itself.
+/// The fast path of the DAK solve for `L` points side by side: two Newton steps from the
+/// table guesses; if any lane has not converged, two more steps for every lane from where
+/// the first two left it, and a lane that converged after two keeps its two-step result.
+/// Above [`MONOTONE_TPR`] the equation is increasing on the bracket, so a converged lane
+/// holds its unique root. Each lane gives exactly the result of the one-lane call, so the
+/// scalar solve (`L = 1`) and the batch kernels agree to the last bit.
+/// Returns (rho_r, dP/drho, Newton steps taken) per lane, steps = 0 where the fast path
+/// did not converge (the caller then runs the safeguarded solver).
+#[inline(always)]
+fn dak_fast<const L: usize>(
+    tpr: &[f64; L],
+    c: &[[f64; L]; 4],
+    target: &[f64; L],
+    x0: &[f64; L],
+) -> ([f64; L], [f64; L], [u32; L]) {
+    let (mut x, mut dp, ok) = dak_newton(tpr, c, target, x0, 2);
+    let mut it = ok.map(|o| if o { 2 } else { 0 });
+    if ok.iter().all(|&o| o) {
+        return (x, dp, it);
+    }
+    let (x4, dp4, ok4) = dak_newton(tpr, c, target, &x, 2);
+    for l in 0..L {
+        if !ok[l] {
+            (x[l], dp[l], it[l]) = (x4[l], dp4[l], if ok4[l] { 4 } else { 0 });
+        }
+    }
+    (x, dp, it)
+}
+
+/// Table guesses for `L` lanes that all lie on one table row: (guess, usable) per lane, a
+/// lane being usable where its `ppr` is finite, > 0 and inside the table. Index arithmetic
+/// and interpolation are branch-free lane loops; only the table loads are scalar.
+#[inline(always)]
+fn dak_guess_on_row<const L: usize>(
+    table: &GuessTable,
+    ppr: &[f64; L],
+    (j, fv): (usize, f64),
+) -> ([f64; L], [bool; L]) {
+    let mut u = [0.0; L];
+    let mut ok = [false; L];
+    for l in 0..L {
+        let v = ppr[l] * TABLE_INV_DP;
+        // false for NaN and +-inf
+        ok[l] = (ppr[l] > 0.0) & (v < (TABLE_NP - 1) as f64);
+        u[l] = if ok[l] { v } else { STANDIN_PPR * TABLE_INV_DP };
+    }
+    let mut g = [0.0; L];
+    for l in 0..L {
+        let i = u[l] as usize;
+        g[l] = table.interpolate(j * TABLE_NP + i, u[l] - i as f64, fv);
+    }
+    (g, ok)
+}
+
+/// The point that stands in for an unusable lane in the batch kernels, so that the lane
+/// converges with the others (its result is discarded).
+const STANDIN_PPR: f64 = 1.0;
+/// See [`STANDIN_PPR`].
+const STANDIN_TPR: f64 = 2.0;
+
+/// Table guesses for `L` lanes of arbitrary (Ppr, Tpr): as [`dak_guess_on_row`], the row
+/// position computed per lane (branch-free, one square root per lane). Returns (guess,
+/// usable, Ppr, Tpr) per lane, unusable lanes replaced by ([`STANDIN_PPR`],
+/// [`STANDIN_TPR`]) and the guess there.
+#[inline(always)]
+#[allow(clippy::type_complexity)]
+fn dak_guess<const L: usize>(
+    table: &GuessTable,
+    ppr: &[f64; L],
+    tpr: &[f64; L],
+) -> ([f64; L], [bool; L], [f64; L], [f64; L]) {
+    let v_standin = (STANDIN_TPR - MONOTONE_TPR).sqrt() * TABLE_INV_DT;
+    let mut u = [0.0; L];
+    let mut v = [0.0; L];
+    let mut ok = [false; L];
+    let mut p = [0.0; L];
+    let mut t = [0.0; L];
+    for l in 0..L {
+        let dt = tpr[l] - MONOTONE_TPR;
+        let pu = ppr[l] * TABLE_INV_DP;
+        let in_t = (0.0..TABLE_DT_MAX).contains(&dt);
+        let tv = if in_t { dt } else { 0.0 }.sqrt() * TABLE_INV_DT;
+        // false for NaN and +-inf
+        ok[l] = (ppr[l] > 0.0) & (pu < (TABLE_NP - 1) as f64) & in_t & (tv < (TABLE_NT - 1) as f64);
+        u[l] = if ok[l] {
+            pu
+        } else {
+            STANDIN_PPR * TABLE_INV_DP
+        };
+        v[l] = if ok[l] { tv } else { v_standin };
+        p[l] = if ok[l] { ppr[l] } else { STANDIN_PPR };
+        t[l] = if ok[l] { tpr[l] } else { STANDIN_TPR };
+    }
+    let mut g = [0.0; L];
+    for l in 0..L {
+        let (i, j) = (u[l] as usize, v[l] as usize);
+        g[l] = table.interpolate(j * TABLE_NP + i, u[l] - i as f64, v[l] - j as f64);
+    }
+    (g, ok, p, t)
+}
+
+/// Z by Dranchuk–Abou-Kassem for [`crate::array::BATCH`] points at once: the fast kernel
+/// of [`crate::gas::z_factor_array`]. Writes Z into `z` and returns, per point, whether it
+/// is final; a final value is exactly that of [`z_dak`] (the same operations, run side by
+/// side; AVX2 when the processor has it, see the crate's `simd` module). Points off the
+/// fast path (outside the starting-density table, below Tpr = [`MONOTONE_TPR`], invalid
+/// input, or four Newton steps not enough) are marked `false`: call [`z_dak`] for them.
 ///
 /// # Arguments
 /// * `x` - (Ppr, Tpr) pairs.
-/// * `out` - the Z-factor or error of each pair.
+/// * `z` - the Z-factor of each pair where the returned flag is `true`.
 ///
 /// # Examples
 /// ```
 /// use stocktank::array::BATCH;
-/// let x = [[2.0, 1.5]; BATCH];
-/// let mut out: [stocktank::Result<f64>; BATCH] = std::array::from_fn(|_| Ok(0.0));
-/// stocktank::gas::z_dak_batch(&x, &mut out);
-/// assert_eq!(*out[3].as_ref().unwrap(), stocktank::gas::z_dak(2.0, 1.5).unwrap());
+/// let mut x = [[2.0, 1.5]; BATCH];
+/// x[1] = [-1.0, 1.5];
+/// let mut z = [0.0; BATCH];
+/// let done = stocktank::gas::z_dak_batch(&x, &mut z);
+/// assert!(done[0] && !done[1]);
+/// assert_eq!(z[0], stocktank::gas::z_dak(2.0, 1.5).unwrap());
 /// ```
 ///
 /// # References
 /// Dranchuk, P.M., Abou-Kassem, J.H. (1975). J. Can. Pet. Technol. 14(3), 34–36.
-pub fn z_dak_batch(x: &[[f64; 2]; BATCH], out: &mut [Result<f64>; BATCH]) {
-    let table = dak_table();
-    let mut ppr = [1.0; BATCH];
-    let mut tpr = [2.0; BATCH];
-    let mut x0 = [0.5; BATCH];
-    let mut fast = [false; BATCH];
-    for l in 0..BATCH {
-        let [p, t] = x[l];
-        if p > 0.0 && p.is_finite() && t.is_finite() {
-            if let Some(g) = table.guess(p, t) {
-                (ppr[l], tpr[l], x0[l], fast[l]) = (p, t, g, true);
-            }
-        }
-    }
-    let target: [f64; BATCH] = std::array::from_fn(|l| 0.27 * ppr[l]);
+pub fn z_dak_batch(x: &[[f64; 2]; BATCH], z: &mut [f64; BATCH]) -> [bool; BATCH] {
+    z_dak_batch_dispatch(x, z)
+}
+
+crate::simd::multiversion! {
+    fn z_dak_batch_dispatch(x: &[[f64; 2]; BATCH], z: &mut [f64; BATCH]) -> [bool; BATCH] => z_dak_batch_body
+}
+
+crate::simd::multiversion! {
+    fn dak_isotherm_into(iso: &DakIsotherm, ppr: &[f64], out: &mut [Result<f64>]) => dak_isotherm_body
+}
+
+#[inline(always)]
+fn z_dak_batch_body(x: &[[f64; 2]; BATCH], z: &mut [f64; BATCH]) -> [bool; BATCH] {
+    let ppr: [f64; BATCH] = std::array::from_fn(|l| x[l][0]);
+    let tpr: [f64; BATCH] = std::array::from_fn(|l| x[l][1]);
+    let (x0, fast, p, t) = dak_guess(dak_table(), &ppr, &tpr);
+    let target: [f64; BATCH] = std::array::from_fn(|l| 0.27 * p[l]);
     let mut c = [[0.0; BATCH]; 4];
     for l in 0..BATCH {
-        let cl = dak_coefficients(tpr[l]);
+        let cl = dak_coefficients(t[l]);
         for k in 0..4 {
             c[k][l] = cl[k];
         }
     }
-    let (r, _, ok) = dak_two_steps(&tpr, &c, &target, &x0);
+    let (r, _, it) = dak_fast(&t, &c, &target, &x0);
     for l in 0..BATCH {
-        out[l] = if fast[l] && ok[l] {
-            Ok(0.27 * ppr[l] / (r[l] * tpr[l]))
-        } else {
-            z_dak(x[l][0], x[l][1])
-        };
+        z[l] = 0.27 * p[l] / (r[l] * t[l]);
+    }
+    std::array::from_fn(|l| fast[l] & (it[l] > 0))
+}
+
+#[inline(always)]
+fn dak_isotherm_body(iso: &DakIsotherm, ppr: &[f64], out: &mut [Result<f64>]) {
+    let Some(row) = iso.row else {
+        for (&p, o) in ppr.iter().zip(out.iter_mut()) {
+            *o = iso.z(p);
+        }
+        return;
+    };
+    let table = dak_table();
+    let tpr = [iso.tpr; BATCH];
+    let c = iso.c.map(|c| [c; BATCH]);
+    for (xs, os) in ppr.chunks(BATCH).zip(out.chunks_mut(BATCH)) {
+        let mut p = [STANDIN_PPR; BATCH];
+        p[..xs.len()].copy_from_slice(xs);
+        let (x0, fast) = dak_guess_on_row(table, &p, row);
+        let target: [f64; BATCH] =
+            std::array::from_fn(|l| 0.27 * if fast[l] { p[l] } else { STANDIN_PPR });
+        let (r, _, it) = dak_fast(&tpr, &c, &target, &x0);
+        for (l, (&pl, o)) in xs.iter().zip(os.iter_mut()).enumerate() {
+            *o = if fast[l] && it[l] > 0 {
+                Ok(0.27 * pl / (r[l] * iso.tpr))
+            } else {
+                iso.z(pl)
+            };
+        }
     }
 }
 
@@ -1033,6 +1158,66 @@ mod tests {
             }
         }
         0.5 * (lo + hi)
+    }
+
+    /// Deterministic pseudo-random points over and beyond the benchmark's domain
+    /// (Ppr 0.2-15, Tpr 1.05-3), including invalid, NaN and out-of-table values.
+    fn points(n: usize) -> Vec<[f64; 2]> {
+        let mut s = 0x9e37_79b9_7f4a_7c15_u64;
+        let mut rnd = move || {
+            s ^= s << 13;
+            s ^= s >> 7;
+            s ^= s << 17;
+            (s >> 11) as f64 / (1u64 << 53) as f64
+        };
+        let mut v: Vec<[f64; 2]> = (0..n)
+            .map(|_| [0.01 + 40.0 * rnd() * rnd(), 0.9 + 2.6 * rnd()])
+            .collect();
+        v.extend([
+            [-1.0, 1.5],
+            [f64::NAN, 1.5],
+            [2.0, f64::INFINITY],
+            [1e-300, 1.2],
+            [31.9, 3.1],
+        ]);
+        v
+    }
+
+    #[test]
+    fn batch_copies_agree_bit_for_bit_with_each_other_and_the_scalar_solve() {
+        let pts = points(200_000);
+        let mut fast = 0;
+        for c in pts.chunks_exact(BATCH) {
+            let x: &[[f64; 2]; BATCH] = c.try_into().unwrap();
+            // Baseline copy (this test function is compiled for the baseline target) and
+            // the dispatched copy (AVX2 + FMA where the processor has them).
+            let (mut z0, mut z1) = ([0.0; BATCH], [0.0; BATCH]);
+            let d0 = z_dak_batch_body(x, &mut z0);
+            let d1 = z_dak_batch(x, &mut z1);
+            assert_eq!(d0, d1);
+            for l in 0..BATCH {
+                if d0[l] {
+                    fast += 1;
+                    assert_eq!(z0[l].to_bits(), z1[l].to_bits(), "{:?}", x[l]);
+                    assert_eq!(z0[l], z_dak(x[l][0], x[l][1]).unwrap(), "{:?}", x[l]);
+                }
+            }
+        }
+        // Almost every valid in-table point takes the fast path.
+        assert!(fast > pts.len() * 8 / 10, "{fast}");
+    }
+
+    #[test]
+    fn isotherm_batch_agrees_with_the_scalar_solve() {
+        for tpr in [0.95, 1.05, 1.07, 1.2, 1.6, 2.5, 3.4] {
+            let iso = DakIsotherm::new(tpr).unwrap();
+            let ppr: Vec<f64> = (0..1001).map(|k| -0.5 + k as f64 * 0.04).collect();
+            let mut out: Vec<Result<f64>> = ppr.iter().map(|_| Ok(0.0)).collect();
+            iso.z_into(&ppr, &mut out);
+            for (&p, o) in ppr.iter().zip(&out) {
+                assert_eq!(*o, iso.z(p), "Ppr {p} Tpr {tpr}");
+            }
+        }
     }
 
     #[test]
