@@ -599,9 +599,12 @@ fn tarner_agrees_with_muskat_and_closes_the_balance() {
         worst[1] = worst[1].max((ta.gor[i] - mu.gor[i]).abs() / mu.gor[i]);
         worst[2] = worst[2].max((ta.so[i] - mu.so[i]).abs());
     }
-    // Stated tolerance: 0.5 % on Np/N and GOR, 0.001 on So with 10-psi steps.
+    // Stated tolerance with 10-psi steps: 1e-4 relative on Np/N, 3e-4 on GOR, 1e-5 on So
+    // (Tarner's trapezoidal GOR integral is second order in the step: the gap shrinks
+    // 100-fold for 10-fold finer steps).
+    println!("Tarner vs Muskat, worst relative Np/N, GOR, abs So: {worst:?}");
     assert!(
-        worst[0] < 5e-3 && worst[1] < 5e-3 && worst[2] < 1e-3,
+        worst[0] < 1e-4 && worst[1] < 3e-4 && worst[2] < 1e-5,
         "{worst:?}"
     );
     // Tarner's Gp from the GOR integral equals Gp from the material balance at every row:

@@ -38,9 +38,10 @@ def test_tarner_matches_muskat_and_gor_equals_rs_below_sgc():
     ta = mb.tarner_forecast(pvt, k, p_bubble=PB, p_end=600.0, n_steps=190)
     assert set(mu) <= set(ta) and {"iterations", "max_mismatch"} <= set(ta)
     np.testing.assert_array_equal(ta["p"], mu["p"])
-    # Two independent published methods agree within 0.5% (10-psi steps).
-    np.testing.assert_allclose(ta["np_over_n"][1:], mu["np_over_n"][1:], rtol=5e-3)
-    np.testing.assert_allclose(ta["gor"], mu["gor"], rtol=5e-3)
+    # Two independent published methods agree within 1e-4 (Np/N) and 3e-4 (GOR, where it
+    # rises steeply) relative, with 10-psi steps.
+    np.testing.assert_allclose(ta["np_over_n"][1:], mu["np_over_n"][1:], rtol=1e-4)
+    np.testing.assert_allclose(ta["gor"], mu["gor"], rtol=3e-4)
     # GOR = Rs while Sg < Sgc (common practice, no source).
     below = ta["sg"] < k.sgc
     assert below.sum() > 3
