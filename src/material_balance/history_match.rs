@@ -21,6 +21,15 @@
 //! the central-difference Jacobian at the solution, s^2 (J^T J)^-1 with
 //! s^2 = SSR / (rows - parameters), and the intervals from the Student-t quantile.
 //!
+//! # Identifiability
+//! Whether the history can separate the parameters (N from m, either from the aquifer) is
+//! reported, not only failed on: the result carries the condition number of J^T J with
+//! the Jacobian columns scaled to unit length, and plain-language warnings when it
+//! exceeds [`CONDITION_WARNING`] or two parameters correlate beyond
+//! [`CORRELATION_WARNING`]. When J^T J is singular (condition number above 1e14) the
+//! [`Error::Singular`] message gives the condition number and the pair of parameters
+//! whose sensitivities are most nearly parallel.
+//!
 //! # References
 //! - Levenberg, K. (1944). Quarterly of Applied Mathematics 2(2), 164–168; Marquardt, D.W.
 //!   (1963). Journal of SIAM 11(2), 431–441; the damping update of Nielsen, H.B. (1999),
@@ -587,8 +596,8 @@ impl Model<'_> {
         let mut st = InfluxStepper::new(model, pi, table, rows_total);
         let t_days = physics.t_days();
         let mut out = Vec::with_capacity(rows_total);
-        for i in 0..rows_total {
-            let (a, b) = st.affine(t_days[i]);
+        for (i, &ti) in t_days.iter().enumerate() {
+            let (a, b) = st.affine(ti);
             let g = |p: f64| -> Result<f64> {
                 match physics {
                     Physics::Oil {
@@ -690,7 +699,7 @@ impl Model<'_> {
                     x
                 }
             };
-            st.push(t_days[i], p, a + b * p);
+            st.push(ti, p, a + b * p);
             out.push(p);
         }
         Ok(out)
@@ -864,7 +873,8 @@ fn withdrawal_solution(
 ///
 /// # Errors
 /// [`Error::Singular`] when the parameters cannot be separated (collinear columns, all
-/// points at one pressure, or a singular Jacobian at the solution); [`Error::InvalidRecord`]
+/// points at one pressure, or a singular Jacobian at the solution, whose message names the
+/// most nearly collinear pair and the condition number); [`Error::InvalidRecord`]
 /// for history rows the PVT table does not cover; [`Error::InvalidArgument`] naming `m`,
 /// `confidence` or an aquifer parameter; [`Error::Shape`] when there are not more rows
 /// than parameters.

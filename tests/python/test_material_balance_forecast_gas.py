@@ -150,3 +150,18 @@ def test_gas_history_match_abnormal_pressure_and_errors():
         mb.gas_history_match(
             t_days=t, p=p, gp_scf=gp, p_initial=PI_GAS, table_p=[4000.0, 5000.0], table_bg=[8e-4, 7e-4]
         )
+
+
+def test_oil_history_match_reports_identifiability():
+    from test_material_balance import RES, declining, make_pvt as make_oil_pvt, synthetic
+
+    pvt = make_oil_pvt()
+    t, p = declining(10, 2900.0)
+    h = synthetic(pvt, t, p, 3e7, 0.3, st.Aquifer(model="pot", constant=500.0))
+    pot = st.Aquifer(model="pot")
+    with pytest.raises(st.SingularError, match=r"condition number.*`n` and `m`"):
+        mb.history_match(pvt, **h, **RES, m=None, aquifer=pot, objective="withdrawal")
+    f = mb.history_match(pvt, **h, **RES, m=0.3, aquifer=pot, objective="withdrawal")
+    assert f["n"] == pytest.approx(3e7, rel=1e-5)
+    assert f["condition_number"] > 1e4
+    assert any("`n` and `aquifer_constant` are correlated" in w for w in f["warnings"])
