@@ -505,6 +505,14 @@ fn gas_terms(
     })?;
     let ce = reservoir.ce();
     let n = history.t_days.len();
+    for (name, v) in [("p", &history.p), ("gp", &history.gp), ("wp", &history.wp)] {
+        if v.len() != n {
+            return Err(Error::Shape(format!(
+                "`{name}` has {} rows but `t_days` has {n}",
+                v.len()
+            )));
+        }
+    }
     let mut t = MbeTerms {
         t_days: history.t_days.clone(),
         p: history.p.clone(),

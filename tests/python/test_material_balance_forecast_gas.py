@@ -165,3 +165,56 @@ def test_oil_history_match_reports_identifiability():
     assert f["n"] == pytest.approx(3e7, rel=1e-5)
     assert f["condition_number"] > 1e4
     assert any("`n` and `aquifer_constant` are correlated" in w for w in f["warnings"])
+
+
+def fetkovich_unit_influx(t, p, pi, tau):
+    """Fetkovich (1971) pseudo-steady-state influx per unit C = Wei/pi, written here
+    independently: dWe_n = C (pa_(n-1) - pbar_n)(1 - exp(-dt/tau)), pa = pi - We/C,
+    pbar_n = (p_(n-1) + p_n)/2 (Fetkovich 1971; Dake 1978, section 9.7)."""
+    we = np.zeros_like(p)
+    for n in range(1, len(p)):
+        pa = pi - we[n - 1]  # per unit C
+        pbar = 0.5 * (p[n - 1] + p[n])
+        we[n] = we[n - 1] + (pa - pbar) * (1 - np.exp(-(t[n] - t[n - 1]) / tau))
+    return we
+
+
+def test_gas_withdrawal_match_equals_scipy_least_squares_fetkovich():
+    # Noisy production, Fetkovich aquifer: the withdrawal match of (G, C, tau) must land
+    # where scipy.optimize.least_squares lands on the same model written in numpy.
+    from scipy import optimize
+
+    truth = st.Aquifer(model="fetkovich", constant=2e4, tau_days=400.0)
+    t, p, gp = gas_history(truth, n=40)
+    rng = np.random.default_rng(11)
+    gp = np.maximum.accumulate(gp * (1 + 0.005 * rng.standard_normal(gp.size)) * (t > 0))
+    bg = st.gas_bg(p, z_of(p), temperature_f=TF)
+    bgi = bg[0]
+    start = st.Aquifer(model="fetkovich", tau_days=100.0)
+    f = mb.gas_history_match(
+        t_days=t,
+        p=p,
+        gp_scf=gp,
+        p_initial=PI_GAS,
+        aquifer=start,
+        objective="withdrawal",
+        table_p=p[::-1],
+        table_bg=bg[::-1],
+    )
+    y = (gp * bg)[1:]
+
+    def resid(x):
+        g, c, tau = np.exp(x)
+        return (y - g * (bg - bgi)[1:] - c * fetkovich_unit_influx(t, p, PI_GAS, tau)[1:]) / 1e6
+
+    sol = optimize.least_squares(resid, np.log([5e10, 1e4, 100.0]), method="lm", xtol=1e-14, ftol=1e-14)
+    g, c, tau = np.exp(sol.x)
+    assert f["g"] == pytest.approx(g, rel=1e-6)
+    assert f["aquifer"].constant == pytest.approx(c, rel=1e-5)
+    assert f["aquifer"].tau_days == pytest.approx(tau, rel=1e-5)
+    # Standard errors from scipy's Jacobian: s^2 (J^T J)^-1 in log space.
+    j = sol.jac
+    s2 = 2 * sol.cost / (len(y) - 3)
+    se = np.sqrt(np.diag(s2 * np.linalg.inv(j.T @ j)))
+    assert f["parameters"]["g"]["std_error"] == pytest.approx(g * se[0], rel=1e-4)
+    assert f["parameters"]["aquifer_constant"]["std_error"] == pytest.approx(c * se[1], rel=1e-4)
