@@ -34,3 +34,48 @@ fn volumetric_gas_pz_plot_worked_example() {
         t * f.g_se
     );
 }
+
+#[test]
+fn fetkovich_approximates_van_everdingen_hurst_in_a_finite_aquifer() {
+    // Not a recalled worked example (none recalled with confidence for aquifers): a
+    // cross-check of two published methods. Fetkovich (1971) built his pseudo-steady-state
+    // model as an approximation of the unsteady van Everdingen & Hurst (1949) solution for
+    // a finite aquifer; both must hold the same water (C dp = U dp (reD^2 - 1)/2 at the end)
+    // and agree once the transient has reached the outer boundary. A step drop dp at the
+    // inner boundary, radial aquifer, full circle; Fetkovich's constants from the same rock
+    // and fluid (J from fetkovich_j_radial, Wei = ct pi (re^2 - ro^2) h phi / 5.615).
+    // Tolerances are our measured deviations (under 7% for tD >= 0.12 reD^2), stated here,
+    // not published figures.
+    let (k, phi, mu, ct, h, ro) = (100.0, 0.2, 0.5, 7e-6, 50.0, 5000.0);
+    let dp = 100.0;
+    for (red, td_min, tol) in [(5.0f64, 3.0, 0.07), (10.0, 30.0, 0.035)] {
+        let (u, a) = veh_constants(k, phi, mu, ct, h, ro, 360.0).unwrap();
+        let j = fetkovich_j_radial(k, h, 360.0, mu, red * ro, ro).unwrap();
+        let c = u * (red * red - 1.0) / 2.0;
+        let p_initial = 3000.0;
+        let fet = fetkovich_aquifer(c * p_initial, j, p_initial).unwrap();
+        let veh = Aquifer {
+            model: AquiferModel::VanEverdingenHurst { td_per_day: a, red },
+            constant: u,
+        };
+        for td in [td_min, 10.0 * td_min, 100.0 * td_min] {
+            let t = td / a;
+            // The step at t = 0, held (the superposition averages a step over its two
+            // intervals, so the step is placed between 0 and a negligible first interval).
+            let ts = [0.0, 1e-9, t];
+            let ps = [p_initial, p_initial - dp, p_initial - dp];
+            let wv = veh.influx(&ts, &ps, p_initial).unwrap()[2];
+            let wf = fet.influx(&ts, &ps, p_initial).unwrap()[2];
+            let rel = (wf / wv - 1.0).abs();
+            println!("reD {red} tD {td}: vEH {wv:.1} rb, Fetkovich {wf:.1} rb, {rel:.2e}");
+            assert!(rel < tol, "reD {red}, tD {td}: {wf} vs {wv}");
+        }
+        // The full aquifer expansion is the same in both (exact, from the definitions).
+        let t_end = 1e4 * red * red / a;
+        let ts = [0.0, 1e-9, t_end];
+        let ps = [p_initial, p_initial - dp, p_initial - dp];
+        let wv = veh.influx(&ts, &ps, p_initial).unwrap()[2];
+        let wf = fet.influx(&ts, &ps, p_initial).unwrap()[2];
+        assert!((wv / (c * dp) - 1.0).abs() < 1e-5 && (wf / (c * dp) - 1.0).abs() < 1e-9);
+    }
+}
