@@ -162,6 +162,33 @@ fn volumetric_and_abnormal_pressure() {
     let naive =
         gas_history_match(&table(), &h, &normal_res(), &GasMatchOptions::default()).unwrap();
     assert!(naive.g > 1.02 * G, "{}", naive.g);
+    // ce unknown: estimated with G from the same history (it enters as G ce).
+    let opts = GasMatchOptions {
+        fit_ce: true,
+        ..Default::default()
+    };
+    for objective in [Objective::Withdrawal, Objective::Pressure] {
+        let fit = gas_history_match(
+            &table(),
+            &h,
+            &normal_res(),
+            &GasMatchOptions { objective, ..opts },
+        )
+        .unwrap();
+        println!(
+            "{objective:?}: {:?} {:?} {:?}",
+            fit.values, fit.ci_low, fit.ci_high
+        );
+        assert_eq!(fit.parameters, vec![MatchParameter::G, MatchParameter::Ce]);
+        assert!((fit.g / G - 1.0).abs() < 1e-5, "{}", fit.g);
+        assert!(
+            (fit.ce / ab.ce() - 1.0).abs() < 1e-4,
+            "{} vs {}",
+            fit.ce,
+            ab.ce()
+        );
+        assert!((fit.values[1] - fit.ce).abs() < 1e-18);
+    }
 }
 
 #[test]

@@ -743,6 +743,7 @@ def gas_history_match(
     aquifer: Optional[Aquifer] = None,
     fit_shape: bool = True,
     fit_red: bool = False,
+    fit_ce: bool = False,
     objective: str = "pressure",
     max_iterations: int = 100,
     tolerance: float = 1e-10,

@@ -10,7 +10,8 @@
 //! ```
 //! The ce term is the abnormal-pressure (rock and connate-water expansion) correction of
 //! Ramagost & Farshad (1981); with cw = cf = 0 the balance is the plain volumetric or
-//! water-drive gas balance. The estimation machinery is that of the oil history match
+//! water-drive gas balance; with `fit_ce` ce is estimated with G (it enters linearly, as
+//! G ce). The estimation machinery is that of the oil history match
 //! ([`super::history_match`]): variable projection on the withdrawal imbalance for the
 //! start, Levenberg–Marquardt on the observed-minus-model pressure (default) or on the
 //! imbalance, the covariance s^2 (J^T J)^-1 from the central-difference Jacobian, and
@@ -26,7 +27,8 @@ use super::aquifer::{Aquifer, AquiferModel};
 use super::gas::gas_bg;
 use super::history::{check_cumulative, check_pressures, check_times};
 use super::history_match::{
-    HistoryMatchOptions, LmStatus, MatchParameter, Objective, Physics, check_options, layout, run,
+    CE_UNIT, HistoryMatchOptions, LmStatus, MatchParameter, Objective, Physics, check_options,
+    layout, run,
 };
 use super::oil::MbeTerms;
 use super::pvt::Pchip;
@@ -331,6 +333,10 @@ pub struct GasMatchOptions {
     pub fit_shape: bool,
     /// Fit the radius ratio reD of a finite van Everdingen–Hurst or Carter–Tracy aquifer.
     pub fit_red: bool,
+    /// Estimate the effective compressibility ce (1/psi, bounded to [0, 1e-4]) instead of
+    /// taking it from the reservoir's Swi, cw and cf (abnormally pressured reservoirs;
+    /// ce is often poorly determined and correlated with G: read the warnings).
+    pub fit_ce: bool,
     /// The objective (observed minus model pressure by default).
     pub objective: Objective,
     /// Iteration limit of Levenberg–Marquardt.
@@ -348,6 +354,7 @@ impl Default for GasMatchOptions {
             aquifer: None,
             fit_shape: o.fit_shape,
             fit_red: o.fit_red,
+            fit_ce: false,
             objective: o.objective,
             max_iterations: o.max_iterations,
             tolerance: o.tolerance,
@@ -373,6 +380,9 @@ pub struct GasHistoryMatch {
     pub correlation: Vec<f64>,
     /// Gas in place G, scf.
     pub g: f64,
+    /// Effective rock and water compressibility ce, 1/psi (fitted with `fit_ce`, else the
+    /// reservoir's).
+    pub ce: f64,
     /// The matched aquifer (None without one).
     pub aquifer: Option<Aquifer>,
     /// Cumulative influx of the matched aquifer along the observed pressures, rb.
@@ -445,7 +455,7 @@ pub fn gas_history_match(
     options: &GasMatchOptions,
 ) -> Result<GasHistoryMatch> {
     let opts = HistoryMatchOptions {
-        m: Some(0.0),
+        m: if options.fit_ce { None } else { Some(0.0) },
         aquifer: options.aquifer,
         fit_shape: options.fit_shape,
         fit_red: options.fit_red,
@@ -456,13 +466,14 @@ pub fn gas_history_match(
     };
     check_options(&opts)?;
     check_pressures(&history.p, reservoir.p_initial)?;
-    let terms = gas_terms(table, history, reservoir)?;
+    let terms = gas_terms(table, history, reservoir, options.fit_ce)?;
     let lay = layout(MatchParameter::G, &opts);
     let f = run(
         Physics::Gas {
             table,
             history,
             reservoir,
+            fit_ce: options.fit_ce,
         },
         terms,
         lay,
@@ -476,6 +487,11 @@ pub fn gas_history_match(
         ci_high: f.ci_high,
         correlation: f.correlation,
         g: f.n,
+        ce: if options.fit_ce {
+            f.m * CE_UNIT
+        } else {
+            reservoir.ce()
+        },
         aquifer: f.aquifer,
         we: f.we,
         p_model: f.p_model,
@@ -492,11 +508,13 @@ pub fn gas_history_match(
 }
 
 /// The gas balance in the Havlena–Odeh layout of [`MbeTerms`]: F in `f`, Bg - Bgi in `eo`,
-/// Bgi ce (pi - p) in `efw` (per unit G), no gas-cap term.
+/// Bgi ce (pi - p) in `efw` (per unit G). With `fit_ce` the compressibility term moves to
+/// `eg` as Bgi CE_UNIT (pi - p), so that the fitted "m" is ce in units of CE_UNIT.
 fn gas_terms(
     table: &GasPvtTable,
     history: &GasHistory,
     reservoir: &GasReservoir,
+    fit_ce: bool,
 ) -> Result<MbeTerms> {
     let pi = reservoir.p_initial;
     let bgi = table.bg(pi).map_err(|e| match e {
@@ -521,7 +539,7 @@ fn gas_terms(
         f_hydrocarbon: Vec::with_capacity(n),
         f_water: Vec::with_capacity(n),
         eo: Vec::with_capacity(n),
-        eg: vec![0.0; n],
+        eg: Vec::with_capacity(n),
         efw: Vec::with_capacity(n),
         p_initial: pi,
         boi: 0.0,
@@ -544,7 +562,14 @@ fn gas_terms(
         t.f_water.push(fw);
         t.f.push(fh + fw);
         t.eo.push(bg - bgi);
-        t.efw.push(bgi * ce * (pi - history.p[i]));
+        let dp = pi - history.p[i];
+        if fit_ce {
+            t.eg.push(bgi * CE_UNIT * dp);
+            t.efw.push(0.0);
+        } else {
+            t.eg.push(0.0);
+            t.efw.push(bgi * ce * dp);
+        }
     }
     Ok(t)
 }

@@ -81,6 +81,9 @@ pub enum MatchParameter {
     G,
     /// Gas-cap ratio m.
     M,
+    /// Effective rock and water compressibility ce of a gas reservoir, 1/psi (gas history
+    /// match with `fit_ce`).
+    Ce,
     /// Aquifer constant C (rb/psi; rb/(psi day) for Schilthuis).
     AquiferConstant,
     /// Fetkovich time constant, days.
@@ -93,7 +96,8 @@ pub enum MatchParameter {
 
 impl MatchParameter {
     /// The parameter's name as used in reports and in Python (`"n"`, `"m"`,
-    /// `"aquifer_constant"`, `"tau_days"`, `"td_per_day"`, `"red"`; `"g"` for gas in place).
+    /// `"aquifer_constant"`, `"tau_days"`, `"td_per_day"`, `"red"`; `"g"` for gas in place,
+    /// `"ce"` for the effective compressibility of a gas reservoir).
     ///
     /// # Examples
     /// ```
@@ -104,6 +108,7 @@ impl MatchParameter {
             MatchParameter::N => "n",
             MatchParameter::G => "g",
             MatchParameter::M => "m",
+            MatchParameter::Ce => "ce",
             MatchParameter::AquiferConstant => "aquifer_constant",
             MatchParameter::TauDays => "tau_days",
             MatchParameter::TdPerDay => "td_per_day",
@@ -357,6 +362,8 @@ where
 pub(super) struct Layout {
     /// The leading (in-place) parameter: N for oil, G for gas.
     pub(super) first: MatchParameter,
+    /// The second linear parameter: m for oil, ce (in units of [`CE_UNIT`]) for gas.
+    pub(super) second: MatchParameter,
     pub(super) fit_m: bool,
     pub(super) m_fixed: f64,
     pub(super) aquifer: Option<AquiferModel>,
@@ -367,7 +374,7 @@ impl Layout {
     fn parameters(&self) -> Vec<MatchParameter> {
         let mut p = vec![self.first];
         if self.fit_m {
-            p.push(MatchParameter::M);
+            p.push(self.second);
         }
         if self.aquifer.is_some() {
             p.push(MatchParameter::AquiferConstant);
@@ -487,6 +494,8 @@ pub(super) enum Physics<'a> {
         table: &'a GasPvtTable,
         history: &'a GasHistory,
         reservoir: &'a GasReservoir,
+        /// ce is the fitted "m" (in [`CE_UNIT`]) rather than the reservoir's.
+        fit_ce: bool,
     },
 }
 
@@ -618,10 +627,12 @@ impl Model<'_> {
                         table,
                         history: h,
                         reservoir,
+                        fit_ce,
                     } => {
                         let bg = table.bg(p)?;
                         let bgi = init.2;
                         let f = h.gp[i] * bg + h.wp[i] * reservoir.bw;
+                        let ce = if *fit_ce { m * CE_UNIT } else { ce };
                         let et = bg - bgi + bgi * ce * (pi - p);
                         Ok(f - n * et - c * (a + b * p))
                     }
@@ -960,6 +971,11 @@ pub(super) fn layout(first: MatchParameter, options: &HistoryMatchOptions) -> La
     }
     Layout {
         first,
+        second: if first == MatchParameter::G {
+            MatchParameter::Ce
+        } else {
+            MatchParameter::M
+        },
         fit_m: options.m.is_none(),
         m_fixed: options.m.unwrap_or(0.0),
         aquifer: options.aquifer,
@@ -1156,6 +1172,12 @@ pub(super) fn run(
                 ci_low.push(v - tq * se);
                 ci_high.push(v + tq * se);
             }
+            MatchParameter::Ce => {
+                values.push(v * CE_UNIT);
+                std_errors.push(se * CE_UNIT);
+                ci_low.push((v - tq * se) * CE_UNIT);
+                ci_high.push((v + tq * se) * CE_UNIT);
+            }
             MatchParameter::Red => {
                 values.push(1.0 + v.exp());
                 std_errors.push(v.exp() * se);
@@ -1216,6 +1238,8 @@ pub(super) fn run(
 /// regression diagnostics, no source: about 1e3 flags strong collinearity; 1e4 is used
 /// here to leave room for the logarithmic parameterisation).
 pub const CONDITION_WARNING: f64 = 1e4;
+/// The gas match estimates ce in units of 1e-6 1/psi (so that it is of order one, like m).
+pub(super) const CE_UNIT: f64 = 1e-6;
 /// Above this absolute correlation between two parameters the report warns.
 pub const CORRELATION_WARNING: f64 = 0.95;
 

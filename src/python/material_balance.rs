@@ -921,6 +921,7 @@ fn gas_match_dict<'py>(py: Python<'py>, f: mb::GasHistoryMatch) -> PyResult<Boun
         f.correlation,
     )?;
     d.set_item("g", f.g)?;
+    d.set_item("ce", f.ce)?;
     d.set_item("aquifer", f.aquifer.map(Aquifer))?;
     d.set_item("we", arr(py, f.we))?;
     d.set_item("p_model", arr(py, f.p_model))?;
@@ -1298,12 +1299,13 @@ fn gas_water_drive_fit<'py>(
 /// ``wp_stb``; gas table: ``table_p`` (psia, ascending) with ``table_z`` (at
 /// ``temperature_f`` degF and standard conditions ``p_sc`` psia, ``t_sc`` degF) or
 /// ``table_bg`` (rb/scf). ``swi``, ``cw``, ``cf`` (1/psi) give the abnormal-pressure term
-/// Bgi ce (pi - p) (Ramagost & Farshad 1981); ``bw`` rb/STB. Returns a dict with
-/// ``parameters`` (name -> value, std_error, ci_low, ci_high), ``correlation``, ``g``,
+/// Bgi ce (pi - p) (Ramagost & Farshad 1981), or ``fit_ce=True`` estimates ce (1/psi, in
+/// [0, 1e-4]) with G; ``bw`` rb/STB. Returns a dict with ``parameters`` (name -> value,
+/// std_error, ci_low, ci_high), ``correlation``, ``g`` (scf), ``ce`` (1/psi),
 /// ``aquifer``, per-row ``we`` (rb), ``p_model`` (psia), ``residuals``, and ``rms``,
 /// ``iterations``, ``status``, ``condition_number``, ``warnings``.
 #[pyfunction]
-#[pyo3(signature = (*, t_days, p, gp_scf, p_initial, table_p, table_z = None, table_bg = None, temperature_f = None, wp_stb = None, bw = 1.0, swi = 0.0, cw = 0.0, cf = 0.0, aquifer = None, fit_shape = true, fit_red = false, objective = "pressure", max_iterations = 100, tolerance = 1e-10, confidence = 0.95, p_sc = 14.696, t_sc = 60.0))]
+#[pyo3(signature = (*, t_days, p, gp_scf, p_initial, table_p, table_z = None, table_bg = None, temperature_f = None, wp_stb = None, bw = 1.0, swi = 0.0, cw = 0.0, cf = 0.0, aquifer = None, fit_shape = true, fit_red = false, fit_ce = false, objective = "pressure", max_iterations = 100, tolerance = 1e-10, confidence = 0.95, p_sc = 14.696, t_sc = 60.0))]
 #[allow(clippy::too_many_arguments)]
 fn gas_history_match<'py>(
     py: Python<'py>,
@@ -1323,6 +1325,7 @@ fn gas_history_match<'py>(
     aquifer: Option<PyRef<'py, Aquifer>>,
     fit_shape: bool,
     fit_red: bool,
+    fit_ce: bool,
     objective: &str,
     max_iterations: usize,
     tolerance: f64,
@@ -1377,6 +1380,7 @@ fn gas_history_match<'py>(
         aquifer: o.aquifer,
         fit_shape,
         fit_red,
+        fit_ce,
         objective: o.objective,
         max_iterations,
         tolerance,

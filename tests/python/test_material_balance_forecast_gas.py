@@ -134,6 +134,10 @@ def test_gas_history_match_abnormal_pressure_and_errors():
     assert f["g"] == pytest.approx(G, rel=1e-6)
     naive = mb.gas_history_match(t_days=t, p=p, gp_scf=gp, p_initial=PI_GAS, **TABLE)
     assert naive["g"] > 1.02 * G  # ignoring rock and water expansion overestimates G
+    fc = mb.gas_history_match(t_days=t, p=p, gp_scf=gp, p_initial=PI_GAS, fit_ce=True, **TABLE)
+    assert list(fc["parameters"]) == ["g", "ce"]
+    assert fc["g"] == pytest.approx(G, rel=1e-5) and fc["ce"] == pytest.approx(ce, rel=1e-4)
+    assert f["ce"] == pytest.approx(ce, rel=1e-12)
     bad = gp.copy()
     bad[5] = bad[4] - 1.0
     with pytest.raises(st.InvalidRecordError, match=r"`gp_scf` at row 5"):
