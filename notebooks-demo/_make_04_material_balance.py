@@ -135,13 +135,17 @@ free = mb.history_match(pvt, **hist, **res, m=None, aquifer=start)
 print("m free:")
 for name, e in free["parameters"].items():
     print(f"{name:>17}: {e['value']:.4g}   95% CI [{e['ci_low']:.4g}, {e['ci_high']:.4g}]")
-print(f"correlation of N and m: {free['correlation'][0, 1]:.3f}")
+print(f"correlation of N and m: {free['correlation'][0, 1]:.3f}; "
+      f"condition number of the scaled J^T J: {free['condition_number']:.3g}")
+for w in free["warnings"]:
+    print("warning:", w)
 print()
 fit = mb.history_match(pvt, **hist, **res, m=0.30, aquifer=start)
 print("m = 0.30 held (truth: N = 65 MMSTB, U = 180 rb/psi, 0.6 per day):")
 for name, e in fit["parameters"].items():
     print(f"{name:>17}: {e['value']:.4g}   95% CI [{e['ci_low']:.4g}, {e['ci_high']:.4g}]")
 print("status:", fit["status"], "| rms pressure residual:", round(fit["rms"], 1), "psi")
+print(f"condition number {fit['condition_number']:.3g}; warnings: {fit['warnings'] or 'none'}")
 fig, ax = plt.subplots(figsize=(7, 3.6))
 ax.plot(t / 365.25, p_obs, "o", ms=3, label="observed")
 ax.plot(t / 365.25, fit["p_model"], "-", label="matched model")
@@ -153,8 +157,10 @@ Reading the match: with m free, N and m are almost perfectly correlated (the his
 mainly N (1 + m)), so the interval on N spans orders of magnitude: this history cannot
 separate them. With m held, the pressures are matched to the gauge noise, N comes out a few
 per cent above the truth, and the aquifer size and its time constant trade off against each
-other (wide intervals). The straight line with the aquifer shape known did better here;
-neither replaces judgement on which model is right.
+other (wide intervals). The report says this itself: the condition number of the scaled
+J^T J and a warning for each pair of parameters correlated beyond 0.95. The straight line
+with the aquifer shape known did better here; neither replaces judgement on which model is
+right.
 """)
 
 md("## Drive indices over time (Pirson 1958)\nWith the matched N, m and aquifer: the share of the withdrawal supplied by each source of energy.")
