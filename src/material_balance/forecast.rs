@@ -266,7 +266,8 @@ fn check_forecast_inputs(pvt: &PvtTable, p_bubble: f64, p_end: f64, n_steps: usi
 ///
 /// # References
 /// - Tarner, J. (1944). How different size gas caps and pressure maintenance programs
-///   affect amount of recoverable oil. Oil Weekly 144(2), 32–44.
+///   affect amount of recoverable oil. Oil Weekly 144(2), June 1944 (volume and issue from
+///   memory; the book below gives the method in full).
 /// - Craft, B.C., Hawkins, M.F. (1959). Applied Petroleum Reservoir Engineering.
 ///   Prentice-Hall, ch. 4.
 pub fn tarner_forecast(
