@@ -6,6 +6,8 @@ in numpy and solved by scipy.optimize.least_squares, side by side in one process
 sides alternate; the ratio quoted is the median of per-round ratios (the machine drifts
 between a fast and a slower state). Then a batch of reservoirs: stocktank's parallel
 history_match_batch against the scipy model looped over a subset (per-reservoir times).
+Last, the gas history match (G, C, tD per day of a vEH aquifer) against the same gas
+model in numpy solved by scipy.optimize.least_squares, alternated the same way.
 
 Usage: python benches/bench_material_balance.py [--steps 200] [--rounds 7] [--batch 1000]
                                                  [--scipy-batch 40]
@@ -85,6 +87,82 @@ class ScipyModel:
         return optimize.least_squares(self.resid, x0, method="lm", xtol=1e-10, ftol=1e-10)
 
 
+PI_GAS, TF_GAS = 5000.0, 200.0
+
+
+def z_gas(p):
+    return 1.0 - 6e-5 * p + 1.2e-8 * p * p
+
+
+def gas_history(steps, g, aq, seed):
+    t = 30.0 * np.arange(steps + 1)
+    p = PI_GAS - 2000.0 * (1 - np.exp(-t / (10.0 * steps)))
+    bg = st.gas_bg(p, z_gas(p), temperature_f=TF_GAS)
+    gp = (g * (bg - bg[0]) + aq.influx(t, p, p_initial=PI_GAS)) / bg
+    rng = np.random.default_rng(seed)
+    pn = np.minimum(p + np.r_[0, rng.normal(0, 2.0, steps)], PI_GAS)
+    return dict(t_days=t, p=pn, gp_scf=gp)
+
+
+class GasScipyModel(ScipyModel):
+    """The gas balance F = Gp Bg = G (Bg - Bgi) + C sum dp_j WD(a (t_k - t_j)) in numpy."""
+
+    def __init__(self, h):
+        t, p = h["t_days"], h["p"]
+        bg = st.gas_bg(p, z_gas(p), temperature_f=TF_GAS)
+        bgi = st.gas_bg(PI_GAS, z_gas(PI_GAS), temperature_f=TF_GAS)
+        self.rows = slice(1, None)
+        dp = np.zeros_like(p)
+        dp[0] = 0.5 * (PI_GAS - p[1]) if p[0] == PI_GAS else 0.5 * (p[0] - p[1])
+        dp[1:-1] = 0.5 * (p[:-2] - p[2:])
+        self.dp = dp
+        lag = t[:, None] - t[None, :]
+        self.mask = lag > 0
+        self.lag = np.where(self.mask, lag, 1.0)
+        self.ltd = np.linspace(np.log(1e-3), np.log(1e8), 221)
+        self.lwd = np.log(st.veh_dimensionless_influx(np.exp(self.ltd)))
+        self.f = h["gp_scf"] * bg
+        self.eg = bg - bgi
+        self.scale = np.abs(self.f).max()
+
+    def resid(self, x):
+        g, c, a = np.exp(x)
+        return ((self.f - g * self.eg - c * self.we_unit(a)) / self.scale)[self.rows]
+
+
+def gas_section(steps, rounds):
+    truth = st.Aquifer(model="veh", constant=600.0, td_per_day=0.05)
+    h = gas_history(steps, 8e10, truth, 3)
+    start = st.Aquifer(model="veh", constant=1.0, td_per_day=0.5)
+    tp = np.arange(1000.0, 5001.0, 50.0)
+    table = dict(table_p=tp, table_z=z_gas(tp), temperature_f=TF_GAS)
+    model = GasScipyModel(h)
+    x0 = np.log([5e10, 100.0, 0.5])
+
+    def ours(objective="withdrawal"):
+        return mb.gas_history_match(**h, p_initial=PI_GAS, aquifer=start, objective=objective, **table)
+
+    def theirs():
+        return model.solve(x0)
+
+    r, s = ours(), theirs()
+    print(f"gas: {steps} pressure steps, vEH infinite aquifer, G, C, tD/day fitted")
+    print(f"  stocktank  G = {r['g']:.6e} scf, C = {r['aquifer'].constant:.2f}, tD/day = {r['aquifer'].td_per_day:.5f} "
+          f"({r['iterations']} iterations, {r['status']})")
+    print(f"  scipy      G = {np.exp(s.x[0]):.6e} scf, C = {np.exp(s.x[1]):.2f}, tD/day = {np.exp(s.x[2]):.5f} "
+          f"({s.nfev} evaluations, status {s.status})")
+    ratios, t_o, t_t, t_p = [], [], [], []
+    for _ in range(rounds):
+        a = time.perf_counter(); ours(); b = time.perf_counter()
+        theirs(); c = time.perf_counter()
+        ours("pressure"); d = time.perf_counter()
+        t_o.append(b - a); t_t.append(c - b); t_p.append(d - c)
+        ratios.append((c - b) / (b - a))
+    print(f"  stocktank (withdrawal) {1e3 * statistics.median(t_o):.2f} ms, scipy.least_squares "
+          f"{1e3 * statistics.median(t_t):.2f} ms, median ratio scipy/stocktank = {statistics.median(ratios):.1f}x")
+    print(f"  stocktank pressure objective: {1e3 * statistics.median(t_p):.2f} ms")
+
+
 def main():
     ap = argparse.ArgumentParser()
     ap.add_argument("--steps", type=int, default=200)
@@ -127,6 +205,8 @@ def main():
           f"scipy.least_squares {1e3 * statistics.median(t_t):.2f} ms, "
           f"median ratio scipy/stocktank = {statistics.median(ratios):.1f}x")
     print(f"  stocktank pressure objective (row-by-row pressure solve): {1e3 * statistics.median(t_p):.2f} ms")
+
+    gas_section(args.steps, args.rounds)
 
     # Batch.
     n_b = args.batch

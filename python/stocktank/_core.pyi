@@ -725,6 +725,32 @@ def history_match_batch(
     confidence: float = 0.95,
     errors: str = "raise",
 ) -> List[Any]: ...
+def gas_history_match(
+    *,
+    t_days: ArrayLike,
+    p: ArrayLike,
+    gp_scf: ArrayLike,
+    p_initial: float,
+    table_p: ArrayLike,
+    table_z: Optional[ArrayLike] = None,
+    table_bg: Optional[ArrayLike] = None,
+    temperature_f: Optional[float] = None,
+    wp_stb: Optional[ArrayLike] = None,
+    bw: float = 1.0,
+    swi: float = 0.0,
+    cw: float = 0.0,
+    cf: float = 0.0,
+    aquifer: Optional[Aquifer] = None,
+    fit_shape: bool = True,
+    fit_red: bool = False,
+    fit_ce: bool = False,
+    objective: str = "pressure",
+    max_iterations: int = 100,
+    tolerance: float = 1e-10,
+    confidence: float = 0.95,
+    p_sc: float = 14.696,
+    t_sc: float = 60.0,
+) -> Dict[str, Any]: ...
 def pz_fit(
     *,
     gp_scf: ArrayLike,
@@ -776,6 +802,14 @@ def gas_water_drive_fit(
     select: Optional[Sequence[bool]] = None,
 ) -> Dict[str, Any]: ...
 def muskat_forecast(
+    pvt: PvtTable,
+    relperm: CoreyGasOil,
+    *,
+    p_bubble: float,
+    p_end: float,
+    n_steps: int = 100,
+) -> Dict[str, Any]: ...
+def tarner_forecast(
     pvt: PvtTable,
     relperm: CoreyGasOil,
     *,

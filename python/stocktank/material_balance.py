@@ -9,7 +9,8 @@ arrays; :func:`to_frame` turns their per-row arrays into a pandas DataFrame.
 Methods: Schilthuis (1936) material balance in the Havlena–Odeh (1963) form; drive indices
 (Pirson 1958); pot, Schilthuis, Fetkovich (1971), van Everdingen–Hurst (1949, Stehfest 1970
 inversion) and Carter–Tracy (1960) aquifers; p/z and Ramagost–Farshad (1981) gas balances;
-the Muskat (1945) forecast. See the Rust crate docs for formulas and references.
+the Muskat (1945) and Tarner (1944) forecasts; nonlinear history matches of oil (N, m,
+aquifer) and gas (G, aquifer) reservoirs. See the Rust crate docs for formulas and references.
 
 All results are screening estimates: review them against measured data before they feed
 reserves, investment or well-safety decisions.
@@ -29,6 +30,7 @@ from ._core import (
     fetkovich_j_linear,
     fetkovich_j_radial,
     gas_bg,
+    gas_history_match,
     gas_water_drive_fit,
     havlena_odeh_fit,
     history_match,
@@ -37,6 +39,7 @@ from ._core import (
     oil_mbe_terms,
     pz_fit,
     pz_fit_abnormal,
+    tarner_forecast,
     veh_constants,
     veh_dimensionless_influx,
     veh_dimensionless_pressure,
@@ -52,6 +55,7 @@ __all__: List[str] = [
     "fetkovich_j_linear",
     "fetkovich_j_radial",
     "gas_bg",
+    "gas_history_match",
     "gas_water_drive_fit",
     "havlena_odeh_fit",
     "history_match",
@@ -60,6 +64,7 @@ __all__: List[str] = [
     "oil_mbe_terms",
     "pz_fit",
     "pz_fit_abnormal",
+    "tarner_forecast",
     "veh_constants",
     "veh_dimensionless_influx",
     "veh_dimensionless_pressure",

@@ -765,10 +765,6 @@ impl DimensionlessTable {
         (v, v * dly / td)
     }
 
-    pub(crate) fn matches(&self, red: f64, kind: Kind) -> bool {
-        self.red.to_bits() == red.to_bits() && self.kind == kind
-    }
-
     #[inline]
     pub(crate) fn eval(&self, td: f64) -> f64 {
         if td <= 0.0 {
@@ -778,7 +774,7 @@ impl DimensionlessTable {
     }
 }
 
-fn cached(
+pub(crate) fn cached(
     cache: &mut Option<DimensionlessTable>,
     red: f64,
     kind: Kind,

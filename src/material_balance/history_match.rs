@@ -21,6 +21,15 @@
 //! the central-difference Jacobian at the solution, s^2 (J^T J)^-1 with
 //! s^2 = SSR / (rows - parameters), and the intervals from the Student-t quantile.
 //!
+//! # Identifiability
+//! Whether the history can separate the parameters (N from m, either from the aquifer) is
+//! reported, not only failed on: the result carries the condition number of J^T J with
+//! the Jacobian columns scaled to unit length, and plain-language warnings when it
+//! exceeds [`CONDITION_WARNING`] or two parameters correlate beyond
+//! [`CORRELATION_WARNING`]. When J^T J is singular (condition number above 1e14) the
+//! [`Error::Singular`] message gives the condition number and the pair of parameters
+//! whose sensitivities are most nearly parallel.
+//!
 //! # References
 //! - Levenberg, K. (1944). Quarterly of Applied Mathematics 2(2), 164–168; Marquardt, D.W.
 //!   (1963). Journal of SIAM 11(2), 431–441; the damping update of Nielsen, H.B. (1999),
@@ -29,8 +38,9 @@
 //!   least squares problems whose variables separate. SIAM J. Numer. Anal. 10(2), 413–432.
 //! - Havlena, D., Odeh, A.S. (1963). JPT 15(8), 896–900.
 
-use super::aquifer::{Aquifer, AquiferModel, DimensionlessTable, InfluxStepper, Kind};
+use super::aquifer::{Aquifer, AquiferModel, DimensionlessTable, InfluxStepper, Kind, cached};
 use super::fit::t_critical;
+use super::gas_match::{GasHistory, GasPvtTable, GasReservoir};
 use super::history::OilHistory;
 use super::oil::{MbeTerms, OilReservoir, oil_mbe_terms};
 use super::pvt::PvtTable;
@@ -67,8 +77,13 @@ pub enum Objective {
 pub enum MatchParameter {
     /// Oil in place N, STB.
     N,
+    /// Gas in place G, scf (gas history match).
+    G,
     /// Gas-cap ratio m.
     M,
+    /// Effective rock and water compressibility ce of a gas reservoir, 1/psi (gas history
+    /// match with `fit_ce`).
+    Ce,
     /// Aquifer constant C (rb/psi; rb/(psi day) for Schilthuis).
     AquiferConstant,
     /// Fetkovich time constant, days.
@@ -81,7 +96,8 @@ pub enum MatchParameter {
 
 impl MatchParameter {
     /// The parameter's name as used in reports and in Python (`"n"`, `"m"`,
-    /// `"aquifer_constant"`, `"tau_days"`, `"td_per_day"`, `"red"`).
+    /// `"aquifer_constant"`, `"tau_days"`, `"td_per_day"`, `"red"`; `"g"` for gas in place,
+    /// `"ce"` for the effective compressibility of a gas reservoir).
     ///
     /// # Examples
     /// ```
@@ -90,7 +106,9 @@ impl MatchParameter {
     pub fn name(&self) -> &'static str {
         match self {
             MatchParameter::N => "n",
+            MatchParameter::G => "g",
             MatchParameter::M => "m",
+            MatchParameter::Ce => "ce",
             MatchParameter::AquiferConstant => "aquifer_constant",
             MatchParameter::TauDays => "tau_days",
             MatchParameter::TdPerDay => "td_per_day",
@@ -176,6 +194,13 @@ pub struct HistoryMatch {
     pub evaluations: usize,
     /// How the (last) iteration ended.
     pub status: LmStatus,
+    /// Condition number of J^T J at the solution with the Jacobian columns scaled to unit
+    /// length (1 for independent parameters; large when the history cannot separate them).
+    pub condition_number: f64,
+    /// Plain-language warnings: ill-conditioning (condition number above
+    /// [`CONDITION_WARNING`]) and each pair of parameters correlated above
+    /// [`CORRELATION_WARNING`] in absolute value.
+    pub warnings: Vec<String>,
 }
 
 /// Solve the small system A x = b by Gaussian elimination with partial pivoting; None when
@@ -334,18 +359,22 @@ where
 }
 
 /// The parameter layout: u = [ln N, m?, ln C?, ln shape...].
-struct Layout {
-    fit_m: bool,
-    m_fixed: f64,
-    aquifer: Option<AquiferModel>,
-    shape: Vec<MatchParameter>,
+pub(super) struct Layout {
+    /// The leading (in-place) parameter: N for oil, G for gas.
+    pub(super) first: MatchParameter,
+    /// The second linear parameter: m for oil, ce (in units of [`CE_UNIT`]) for gas.
+    pub(super) second: MatchParameter,
+    pub(super) fit_m: bool,
+    pub(super) m_fixed: f64,
+    pub(super) aquifer: Option<AquiferModel>,
+    pub(super) shape: Vec<MatchParameter>,
 }
 
 impl Layout {
     fn parameters(&self) -> Vec<MatchParameter> {
-        let mut p = vec![MatchParameter::N];
+        let mut p = vec![self.first];
         if self.fit_m {
-            p.push(MatchParameter::M);
+            p.push(self.second);
         }
         if self.aquifer.is_some() {
             p.push(MatchParameter::AquiferConstant);
@@ -413,7 +442,13 @@ impl Layout {
     }
 
     fn bounds(&self) -> Vec<(f64, f64)> {
-        let mut b = vec![(0.0f64.max(1.0f64.ln()), 1e15f64.ln())];
+        // N up to 1e15 STB; G up to 1e18 scf.
+        let top = if self.first == MatchParameter::G {
+            1e18
+        } else {
+            1e15
+        };
+        let mut b = vec![(0.0f64.max(1.0f64.ln()), f64::ln(top))];
         if self.fit_m {
             b.push((0.0, 100.0));
         }
@@ -446,33 +481,70 @@ impl Layout {
     }
 }
 
-struct Model<'a> {
-    pvt: &'a PvtTable,
-    history: &'a OilHistory,
-    reservoir: &'a OilReservoir,
-    terms: MbeTerms,
-    rows: Vec<usize>,
-    table: Option<DimensionlessTable>,
-    evaluations: usize,
+/// The balance a history match solves row by row for the model pressure.
+pub(super) enum Physics<'a> {
+    /// An oil reservoir with its PVT table.
+    Oil {
+        pvt: &'a PvtTable,
+        history: &'a OilHistory,
+        reservoir: &'a OilReservoir,
+    },
+    /// A gas reservoir: F = Gp Bg + Wp Bw = G [Bg - Bgi + Bgi ce (pi - p)] + We.
+    Gas {
+        table: &'a GasPvtTable,
+        history: &'a GasHistory,
+        reservoir: &'a GasReservoir,
+        /// ce is the fitted "m" (in [`CE_UNIT`]) rather than the reservoir's.
+        fit_ce: bool,
+    },
+}
+
+impl Physics<'_> {
+    fn len(&self) -> usize {
+        match self {
+            Physics::Oil { history, .. } => history.len(),
+            Physics::Gas { history, .. } => history.t_days.len(),
+        }
+    }
+
+    fn t_days(&self) -> &[f64] {
+        match self {
+            Physics::Oil { history, .. } => &history.t_days,
+            Physics::Gas { history, .. } => &history.t_days,
+        }
+    }
+
+    fn p_obs(&self) -> &[f64] {
+        match self {
+            Physics::Oil { history, .. } => &history.p,
+            Physics::Gas { history, .. } => &history.p,
+        }
+    }
+
+    fn p_initial(&self) -> f64 {
+        match self {
+            Physics::Oil { reservoir, .. } => reservoir.p_initial,
+            Physics::Gas { reservoir, .. } => reservoir.p_initial,
+        }
+    }
+
+    fn p_low(&self) -> f64 {
+        match self {
+            Physics::Oil { pvt, .. } => pvt.pressure_range().0,
+            Physics::Gas { table, .. } => table.pressure_range().0,
+        }
+    }
+}
+
+pub(super) struct Model<'a> {
+    pub(super) physics: Physics<'a>,
+    pub(super) terms: MbeTerms,
+    pub(super) rows: Vec<usize>,
+    pub(super) table: Option<DimensionlessTable>,
+    pub(super) evaluations: usize,
 }
 
 impl Model<'_> {
-    fn table_for(&mut self, model: &AquiferModel) -> Result<Option<&DimensionlessTable>> {
-        let (red, kind) = match *model {
-            AquiferModel::VanEverdingenHurst { red, .. } => (red, Kind::Influx),
-            AquiferModel::CarterTracy { red, .. } => (red, Kind::Pressure),
-            _ => return Ok(None),
-        };
-        let fresh = match &self.table {
-            Some(t) => !t.matches(red, kind),
-            None => true,
-        };
-        if fresh {
-            self.table = Some(DimensionlessTable::shared(red, kind)?);
-        }
-        Ok(self.table.as_ref())
-    }
-
     fn unit_influx(&mut self, model: &AquiferModel) -> Result<Vec<f64>> {
         self.evaluations += 1;
         let t = &self.terms;
@@ -502,31 +574,69 @@ impl Model<'_> {
     /// by row (Illinois false position in [table minimum, p_initial]).
     fn pressures(&mut self, n: f64, m: f64, aq: Option<&Aquifer>) -> Result<Vec<f64>> {
         self.evaluations += 1;
-        let pvt = self.pvt;
-        let h = self.history;
-        let res = self.reservoir;
-        let pi = res.p_initial;
-        let init = pvt.at(pi)?;
-        let ce = (res.cw * res.swi + res.cf) / (1.0 - res.swi);
-        let p_lo = pvt.pressure_range().0;
+        let pi = self.physics.p_initial();
+        let p_lo = self.physics.p_low();
+        let rows_total = self.physics.len();
         let (model, c) = match aq {
             Some(a) => (a.model, a.constant),
             None => (AquiferModel::Pot, 0.0),
         };
-        let table = self.table_for(&model)?;
-        let mut st = InfluxStepper::new(model, pi, table, h.len());
-        let mut out = Vec::with_capacity(h.len());
-        for i in 0..h.len() {
-            let (a, b) = st.affine(h.t_days[i]);
+        // The initial state of the balance (oil: Bo, Rs, Bg at pi; gas: Bgi) and ce.
+        let (init, ce) = match &self.physics {
+            Physics::Oil { pvt, reservoir, .. } => {
+                let q = pvt.at(pi)?;
+                let r = reservoir;
+                ((q.bo, q.rs, q.bg), (r.cw * r.swi + r.cf) / (1.0 - r.swi))
+            }
+            Physics::Gas {
+                table, reservoir, ..
+            } => ((0.0, 0.0, table.bg(pi)?), reservoir.ce()),
+        };
+        let physics = &self.physics;
+        let table = match &model {
+            AquiferModel::VanEverdingenHurst { red, .. } => {
+                Some(cached(&mut self.table, *red, Kind::Influx)?)
+            }
+            AquiferModel::CarterTracy { red, .. } => {
+                Some(cached(&mut self.table, *red, Kind::Pressure)?)
+            }
+            _ => None,
+        };
+        let mut st = InfluxStepper::new(model, pi, table, rows_total);
+        let t_days = physics.t_days();
+        let mut out = Vec::with_capacity(rows_total);
+        for (i, &ti) in t_days.iter().enumerate() {
+            let (a, b) = st.affine(ti);
             let g = |p: f64| -> Result<f64> {
-                let q = pvt.at(p)?;
-                let f =
-                    h.np[i] * q.bo + (h.gp[i] - h.np[i] * q.rs) * q.bg + (h.wp[i] - h.wi[i]) * q.bw
-                        - h.gi[i] * q.bg;
-                let eo = (q.bo - init.bo) + (init.rs - q.rs) * q.bg;
-                let eg = init.bo * (q.bg / init.bg - 1.0);
-                let efw = init.bo * ce * (pi - p);
-                Ok(f - n * (eo + m * eg + (1.0 + m) * efw) - c * (a + b * p))
+                match physics {
+                    Physics::Oil {
+                        pvt, history: h, ..
+                    } => {
+                        let q = pvt.at(p)?;
+                        let f = h.np[i] * q.bo
+                            + (h.gp[i] - h.np[i] * q.rs) * q.bg
+                            + (h.wp[i] - h.wi[i]) * q.bw
+                            - h.gi[i] * q.bg;
+                        let (boi, rsi, bgi) = init;
+                        let eo = (q.bo - boi) + (rsi - q.rs) * q.bg;
+                        let eg = boi * (q.bg / bgi - 1.0);
+                        let efw = boi * ce * (pi - p);
+                        Ok(f - n * (eo + m * eg + (1.0 + m) * efw) - c * (a + b * p))
+                    }
+                    Physics::Gas {
+                        table,
+                        history: h,
+                        reservoir,
+                        fit_ce,
+                    } => {
+                        let bg = table.bg(p)?;
+                        let bgi = init.2;
+                        let f = h.gp[i] * bg + h.wp[i] * reservoir.bw;
+                        let ce = if *fit_ce { m * CE_UNIT } else { ce };
+                        let et = bg - bgi + bgi * ce * (pi - p);
+                        Ok(f - n * et - c * (a + b * p))
+                    }
+                }
             };
             // Bracket the root nearest the previous row's pressure (the balance can have
             // more than one root in [p_lo, pi]; the physical one continues the history),
@@ -600,7 +710,7 @@ impl Model<'_> {
                     x
                 }
             };
-            st.push(h.t_days[i], p, a + b * p);
+            st.push(ti, p, a + b * p);
             out.push(p);
         }
         Ok(out)
@@ -774,7 +884,8 @@ fn withdrawal_solution(
 ///
 /// # Errors
 /// [`Error::Singular`] when the parameters cannot be separated (collinear columns, all
-/// points at one pressure, or a singular Jacobian at the solution); [`Error::InvalidRecord`]
+/// points at one pressure, or a singular Jacobian at the solution, whose message names the
+/// most nearly collinear pair and the condition number); [`Error::InvalidRecord`]
 /// for history rows the PVT table does not cover; [`Error::InvalidArgument`] naming `m`,
 /// `confidence` or an aquifer parameter; [`Error::Shape`] when there are not more rows
 /// than parameters.
@@ -805,6 +916,23 @@ pub fn history_match(
     reservoir: &OilReservoir,
     options: &HistoryMatchOptions,
 ) -> Result<HistoryMatch> {
+    check_options(options)?;
+    let terms = oil_mbe_terms(pvt, history, reservoir)?;
+    let lay = layout(MatchParameter::N, options);
+    run(
+        Physics::Oil {
+            pvt,
+            history,
+            reservoir,
+        },
+        terms,
+        lay,
+        options,
+    )
+}
+
+/// Validate the options shared by the oil and gas history matches.
+pub(super) fn check_options(options: &HistoryMatchOptions) -> Result<()> {
     if !(options.confidence > 0.0 && options.confidence < 1.0) {
         return Err(Error::invalid(
             "confidence",
@@ -818,12 +946,11 @@ pub fn history_match(
     if let Some(a) = &options.aquifer {
         a.validate()?;
     }
-    let terms = oil_mbe_terms(pvt, history, reservoir)?;
-    let rows: Vec<usize> = (0..terms.f.len())
-        .filter(|&i| {
-            terms.f[i] != 0.0 || terms.eo[i] != 0.0 || terms.eg[i] != 0.0 || terms.efw[i] != 0.0
-        })
-        .collect();
+    Ok(())
+}
+
+/// The parameter layout for the options, led by `first` (N or G).
+pub(super) fn layout(first: MatchParameter, options: &HistoryMatchOptions) -> Layout {
     let mut shape = Vec::new();
     if let Some(model) = options.aquifer {
         match model {
@@ -842,12 +969,33 @@ pub fn history_match(
             _ => {}
         }
     }
-    let lay = Layout {
+    Layout {
+        first,
+        second: if first == MatchParameter::G {
+            MatchParameter::Ce
+        } else {
+            MatchParameter::M
+        },
         fit_m: options.m.is_none(),
         m_fixed: options.m.unwrap_or(0.0),
         aquifer: options.aquifer,
         shape,
-    };
+    }
+}
+
+/// Run the match: withdrawal solution (variable projection), then Levenberg–Marquardt on
+/// the chosen objective, then the covariance report.
+pub(super) fn run(
+    physics: Physics<'_>,
+    terms: MbeTerms,
+    lay: Layout,
+    options: &HistoryMatchOptions,
+) -> Result<HistoryMatch> {
+    let rows: Vec<usize> = (0..terms.f.len())
+        .filter(|&i| {
+            terms.f[i] != 0.0 || terms.eo[i] != 0.0 || terms.eg[i] != 0.0 || terms.efw[i] != 0.0
+        })
+        .collect();
     let params = lay.parameters();
     let p_count = params.len();
     if rows.len() <= p_count {
@@ -856,10 +1004,10 @@ pub fn history_match(
             rows.len()
         )));
     }
+    let n_rows = physics.len();
+    let p_obs: Vec<f64> = rows.iter().map(|&i| physics.p_obs()[i]).collect();
     let mut model = Model {
-        pvt,
-        history,
-        reservoir,
+        physics,
         terms,
         rows: rows.clone(),
         table: None,
@@ -901,7 +1049,6 @@ pub fn history_match(
     for (v, b) in u.iter_mut().zip(&bounds) {
         *v = v.clamp(b.0, b.1);
     }
-    let p_obs: Vec<f64> = rows.iter().map(|&i| history.p[i]).collect();
     let residual = |model: &mut Model<'_>, u: &[f64]| -> Result<Vec<f64>> {
         let (n, m, aq) = lay.decode(u);
         match options.objective {
@@ -957,13 +1104,29 @@ pub fn history_match(
                 jac[r].iter().zip(&jac[c]).map(|(x, y)| x * y).sum::<f64>() / (norms[r] * norms[c]);
         }
     }
-    let inv = inverse(&jtj, p_count).ok_or_else(|| Error::Singular {
-        what: "history match",
-        detail: format!(
-            "the Jacobian at the solution is singular: the parameters {:?} are not all identifiable from this history",
-            params.iter().map(|p| p.name()).collect::<Vec<_>>()
-        ),
-    })?;
+    let eig = symmetric_eigenvalues(&jtj, p_count);
+    let (e_min, e_max) = eig
+        .iter()
+        .fold((f64::INFINITY, 0.0f64), |(a, b), &e| (a.min(e), b.max(e)));
+    let condition_number = if e_min > 0.0 {
+        e_max / e_min
+    } else {
+        f64::INFINITY
+    };
+    let inv = match inverse(&jtj, p_count) {
+        Some(inv) if condition_number < 1e14 => inv,
+        _ => {
+            return Err(Error::Singular {
+                what: "history match",
+                detail: format!(
+                    "the Jacobian at the solution is singular (condition number of the scaled J^T J {condition_number:.3e}): \
+                     the parameters {:?} are not all identifiable from this history; {}",
+                    params.iter().map(|p| p.name()).collect::<Vec<_>>(),
+                    collinear_pair(&jtj, &params)
+                ),
+            });
+        }
+    };
     let cost = ssq(&r0);
     let dof = (nr - p_count) as f64;
     let s2 = cost / dof;
@@ -979,6 +1142,26 @@ pub fn history_match(
                 inv[r * p_count + c] / (inv[r * p_count + r] * inv[c * p_count + c]).sqrt();
         }
     }
+    let mut warnings = Vec::new();
+    if condition_number > CONDITION_WARNING {
+        warnings.push(format!(
+            "ill-conditioned: the condition number of the scaled J^T J is {condition_number:.3e} \
+             (> {CONDITION_WARNING:.0e}); the intervals are wide and the values depend on the noise"
+        ));
+    }
+    for r in 0..p_count {
+        for c in r + 1..p_count {
+            let v = correlation[r * p_count + c];
+            if v.abs() > CORRELATION_WARNING {
+                warnings.push(format!(
+                    "`{}` and `{}` are correlated at {v:.4}: the history cannot separate them well; \
+                     fix one from independent data (e.g. m from logs, the aquifer from its geology)",
+                    params[r].name(),
+                    params[c].name()
+                ));
+            }
+        }
+    }
     for (j, par) in params.iter().enumerate() {
         let se = (s2 * inv[j * p_count + j]).max(0.0).sqrt() / norms[j];
         let v = u[j];
@@ -988,6 +1171,12 @@ pub fn history_match(
                 std_errors.push(se);
                 ci_low.push(v - tq * se);
                 ci_high.push(v + tq * se);
+            }
+            MatchParameter::Ce => {
+                values.push(v * CE_UNIT);
+                std_errors.push(se * CE_UNIT);
+                ci_low.push((v - tq * se) * CE_UNIT);
+                ci_high.push((v + tq * se) * CE_UNIT);
             }
             MatchParameter::Red => {
                 values.push(1.0 + v.exp());
@@ -1010,14 +1199,14 @@ pub fn history_match(
             .into_iter()
             .map(|w| w * a.constant)
             .collect(),
-        None => vec![0.0; history.len()],
+        None => vec![0.0; n_rows],
     };
     let p_model = model.pressures(n, m, aq.as_ref())?;
-    let mut residuals = vec![f64::NAN; history.len()];
+    let mut residuals = vec![f64::NAN; n_rows];
     for (k, &i) in rows.iter().enumerate() {
         residuals[i] = r0[k];
     }
-    let mut used = vec![false; history.len()];
+    let mut used = vec![false; n_rows];
     for &i in &rows {
         used[i] = true;
     }
@@ -1040,7 +1229,82 @@ pub fn history_match(
         iterations,
         evaluations: model.evaluations,
         status,
+        condition_number,
+        warnings,
     })
+}
+
+/// Above this condition number of the scaled J^T J the report warns (common practice in
+/// regression diagnostics, no source: about 1e3 flags strong collinearity; 1e4 is used
+/// here to leave room for the logarithmic parameterisation).
+pub const CONDITION_WARNING: f64 = 1e4;
+/// The gas match estimates ce in units of 1e-6 1/psi (so that it is of order one, like m).
+pub(super) const CE_UNIT: f64 = 1e-6;
+/// Above this absolute correlation between two parameters the report warns.
+pub const CORRELATION_WARNING: f64 = 0.95;
+
+/// The pair of parameters whose (scaled) Jacobian columns are the most nearly parallel.
+fn collinear_pair(jtj: &[f64], params: &[MatchParameter]) -> String {
+    let q = params.len();
+    let mut best: Option<(f64, usize, usize)> = None;
+    for r in 0..q {
+        for c in r + 1..q {
+            let v = jtj[r * q + c].abs();
+            if best.is_none_or(|(b, _, _)| v > b) {
+                best = Some((v, r, c));
+            }
+        }
+    }
+    match best {
+        Some((v, r, c)) => format!(
+            "the sensitivities of `{}` and `{}` are parallel to within cosine {v:.6}",
+            params[r].name(),
+            params[c].name()
+        ),
+        None => "a single parameter has no sensitivity".into(),
+    }
+}
+
+/// Eigenvalues of a small symmetric matrix by cyclic Jacobi rotations (Golub & Van Loan
+/// 2013, Matrix Computations, 4th ed., section 8.5).
+fn symmetric_eigenvalues(a: &[f64], n: usize) -> Vec<f64> {
+    let mut a = a.to_vec();
+    for _sweep in 0..100 {
+        let off: f64 = (0..n)
+            .flat_map(|r| (0..n).filter(move |&c| c != r).map(move |c| (r, c)))
+            .map(|(r, c)| a[r * n + c] * a[r * n + c])
+            .sum();
+        let diag: f64 = (0..n).map(|i| a[i * n + i] * a[i * n + i]).sum();
+        if off <= 1e-30 * diag.max(f64::MIN_POSITIVE) {
+            break;
+        }
+        for p in 0..n {
+            for q in p + 1..n {
+                let apq = a[p * n + q];
+                if apq == 0.0 {
+                    continue;
+                }
+                let theta = (a[q * n + q] - a[p * n + p]) / (2.0 * apq);
+                let sign = if theta >= 0.0 { 1.0 } else { -1.0 };
+                let t = sign / (theta.abs() + (theta * theta + 1.0).sqrt());
+                let c = 1.0 / (t * t + 1.0).sqrt();
+                let s = t * c;
+                for k in 0..n {
+                    let akp = a[k * n + p];
+                    let akq = a[k * n + q];
+                    a[k * n + p] = c * akp - s * akq;
+                    a[k * n + q] = s * akp + c * akq;
+                }
+                for k in 0..n {
+                    let apk = a[p * n + k];
+                    let aqk = a[q * n + k];
+                    a[p * n + k] = c * apk - s * aqk;
+                    a[q * n + k] = s * apk + c * aqk;
+                }
+            }
+        }
+    }
+    (0..n).map(|i| a[i * n + i]).collect()
 }
 
 /// One reservoir of a batch history match.
@@ -1070,4 +1334,24 @@ pub fn history_match_batch(
         .par_iter()
         .map(|x| history_match(&x.pvt, &x.history, &x.reservoir, options))
         .collect()
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn jacobi_eigenvalues_match_numpy() {
+        // numpy.linalg.eigvalsh([[4,1,2],[1,3,0],[2,0,5]]) = [1.8549, 3.4760, 6.6691]
+        // (computed with numpy 2.x, rounded to 4 decimals).
+        let a = [4.0, 1.0, 2.0, 1.0, 3.0, 0.0, 2.0, 0.0, 5.0];
+        let mut e = symmetric_eigenvalues(&a, 3);
+        e.sort_by(f64::total_cmp);
+        for (x, y) in e.iter().zip([1.8549, 3.4760, 6.6691]) {
+            assert!((x - y).abs() < 1e-4, "{e:?}");
+        }
+        // Trace and determinant are kept: 12 and 4*15 - 1*5 + 2*(-6) = 43.
+        assert!((e.iter().sum::<f64>() - 12.0).abs() < 1e-12);
+        assert!((e.iter().product::<f64>() - 43.0).abs() < 1e-9);
+    }
 }

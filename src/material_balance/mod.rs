@@ -10,7 +10,9 @@
 //! - [`Aquifer`], [`AquiferModel`]: pot, Schilthuis, Fetkovich, van Everdingen–Hurst and
 //!   Carter–Tracy influx.
 //! - [`pz_fit`], [`pz_fit_abnormal`], [`gas_water_drive_fit`], [`cole_plot`]: gas balances.
-//! - [`muskat_forecast`]: solution-gas-drive forecast below the bubble point.
+//! - [`gas_history_match`]: nonlinear least squares of G and the aquifer parameters.
+//! - [`muskat_forecast`], [`tarner_forecast`]: solution-gas-drive forecasts below the
+//!   bubble point.
 //!
 //! All results are screening estimates: they feed reserves and investment decisions only
 //! after review by a qualified engineer against measured data.
@@ -20,6 +22,7 @@ mod diagnostics;
 mod fit;
 mod forecast;
 mod gas;
+mod gas_match;
 mod history;
 mod history_match;
 mod laplace;
@@ -34,12 +37,17 @@ pub use diagnostics::{
     DriveClassification, DriveIndices, campbell_plot, classify_drive, drive_indices,
 };
 pub use fit::{LineFit, fit_line, t_critical};
-pub use forecast::{MuskatForecast, muskat_forecast};
+pub use forecast::{
+    MuskatForecast, TARNER_TOLERANCE, TarnerForecast, muskat_forecast, tarner_forecast,
+};
 pub use gas::{GasFit, cole_plot, gas_bg, gas_water_drive_fit, pz_fit, pz_fit_abnormal};
+pub use gas_match::{
+    GasHistory, GasHistoryMatch, GasMatchOptions, GasPvtTable, GasReservoir, gas_history_match,
+};
 pub use history::OilHistory;
 pub use history_match::{
-    HistoryMatch, HistoryMatchInput, HistoryMatchOptions, LmStatus, MatchParameter, Objective,
-    history_match, history_match_batch,
+    CONDITION_WARNING, CORRELATION_WARNING, HistoryMatch, HistoryMatchInput, HistoryMatchOptions,
+    LmStatus, MatchParameter, Objective, history_match, history_match_batch,
 };
 pub use laplace::{STEHFEST_TERMS, stehfest_invert, stehfest_weights};
 pub use oil::{

@@ -31,13 +31,13 @@ pub struct PvtPoint {
 /// A monotone piecewise-cubic Hermite interpolant (Fritsch & Carlson 1980): no overshoot
 /// between table rows, exact at the rows, continuous first derivative.
 #[derive(Debug, Clone, PartialEq)]
-struct Pchip {
+pub(super) struct Pchip {
     y: Vec<f64>,
     d: Vec<f64>,
 }
 
 impl Pchip {
-    fn new(x: &[f64], y: &[f64]) -> Self {
+    pub(super) fn new(x: &[f64], y: &[f64]) -> Self {
         let n = x.len();
         let mut d = vec![0.0; n];
         if n == 2 {
@@ -72,7 +72,7 @@ impl Pchip {
 
     /// Value and derivative on segment k at x.
     #[inline]
-    fn eval(&self, xs: &[f64], k: usize, x: f64) -> (f64, f64) {
+    pub(super) fn eval(&self, xs: &[f64], k: usize, x: f64) -> (f64, f64) {
         let h = xs[k + 1] - xs[k];
         let t = (x - xs[k]) / h;
         let (y0, y1, d0, d1) = (self.y[k], self.y[k + 1], self.d[k], self.d[k + 1]);

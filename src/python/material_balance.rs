@@ -849,19 +849,15 @@ fn match_options(
 fn match_dict<'py>(py: Python<'py>, f: mb::HistoryMatch) -> PyResult<Bound<'py, PyDict>> {
     let d = PyDict::new(py);
     let names: Vec<&str> = f.parameters.iter().map(|p| p.name()).collect();
-    let params = PyDict::new(py);
-    for (i, name) in names.iter().enumerate() {
-        let e = PyDict::new(py);
-        e.set_item("value", f.values[i])?;
-        e.set_item("std_error", f.std_errors[i])?;
-        e.set_item("ci_low", f.ci_low[i])?;
-        e.set_item("ci_high", f.ci_high[i])?;
-        params.set_item(name, e)?;
-    }
-    d.set_item("parameters", params)?;
-    let k = names.len();
-    let corr = numpy::PyArray1::from_vec(py, f.correlation).reshape([k, k])?;
-    d.set_item("correlation", corr)?;
+    params_into(
+        py,
+        &d,
+        &names,
+        &f.values,
+        &f.std_errors,
+        (&f.ci_low, &f.ci_high),
+        f.correlation,
+    )?;
     d.set_item("n", f.n)?;
     d.set_item("m", f.m)?;
     d.set_item("aquifer", f.aquifer.map(Aquifer))?;
@@ -870,16 +866,74 @@ fn match_dict<'py>(py: Python<'py>, f: mb::HistoryMatch) -> PyResult<Bound<'py, 
     d.set_item("residuals", arr(py, f.residuals))?;
     d.set_item("rms", f.rms)?;
     d.set_item("used", numpy::PyArray1::from_vec(py, f.used))?;
-    d.set_item(
-        "objective",
-        match f.objective {
-            mb::Objective::Pressure => "pressure",
-            mb::Objective::Withdrawal => "withdrawal",
-        },
-    )?;
+    d.set_item("objective", objective_name(f.objective))?;
     d.set_item("iterations", f.iterations)?;
     d.set_item("evaluations", f.evaluations)?;
     d.set_item("status", format!("{:?}", f.status))?;
+    d.set_item("condition_number", f.condition_number)?;
+    d.set_item("warnings", PyList::new(py, f.warnings)?)?;
+    Ok(d)
+}
+
+/// The parameter entries and correlation matrix shared by the oil and gas match dicts.
+fn params_into<'py>(
+    py: Python<'py>,
+    d: &Bound<'py, PyDict>,
+    names: &[&str],
+    values: &[f64],
+    std_errors: &[f64],
+    ci: (&[f64], &[f64]),
+    correlation: Vec<f64>,
+) -> PyResult<()> {
+    let params = PyDict::new(py);
+    for (i, name) in names.iter().enumerate() {
+        let e = PyDict::new(py);
+        e.set_item("value", values[i])?;
+        e.set_item("std_error", std_errors[i])?;
+        e.set_item("ci_low", ci.0[i])?;
+        e.set_item("ci_high", ci.1[i])?;
+        params.set_item(name, e)?;
+    }
+    d.set_item("parameters", params)?;
+    let k = names.len();
+    let corr = numpy::PyArray1::from_vec(py, correlation).reshape([k, k])?;
+    d.set_item("correlation", corr)?;
+    Ok(())
+}
+
+fn objective_name(o: mb::Objective) -> &'static str {
+    match o {
+        mb::Objective::Pressure => "pressure",
+        mb::Objective::Withdrawal => "withdrawal",
+    }
+}
+
+fn gas_match_dict<'py>(py: Python<'py>, f: mb::GasHistoryMatch) -> PyResult<Bound<'py, PyDict>> {
+    let d = PyDict::new(py);
+    let names: Vec<&str> = f.parameters.iter().map(|p| p.name()).collect();
+    params_into(
+        py,
+        &d,
+        &names,
+        &f.values,
+        &f.std_errors,
+        (&f.ci_low, &f.ci_high),
+        f.correlation,
+    )?;
+    d.set_item("g", f.g)?;
+    d.set_item("ce", f.ce)?;
+    d.set_item("aquifer", f.aquifer.map(Aquifer))?;
+    d.set_item("we", arr(py, f.we))?;
+    d.set_item("p_model", arr(py, f.p_model))?;
+    d.set_item("residuals", arr(py, f.residuals))?;
+    d.set_item("rms", f.rms)?;
+    d.set_item("used", numpy::PyArray1::from_vec(py, f.used))?;
+    d.set_item("objective", objective_name(f.objective))?;
+    d.set_item("iterations", f.iterations)?;
+    d.set_item("evaluations", f.evaluations)?;
+    d.set_item("status", format!("{:?}", f.status))?;
+    d.set_item("condition_number", f.condition_number)?;
+    d.set_item("warnings", PyList::new(py, f.warnings)?)?;
     Ok(d)
 }
 
@@ -888,7 +942,8 @@ fn match_dict<'py>(py: Python<'py>, f: mb::HistoryMatch) -> PyResult<Bound<'py, 
 /// ``objective="pressure"`` (observed minus model pressure, psi) or ``"withdrawal"``
 /// (Havlena–Odeh imbalance, rb). Returns a dict with ``parameters`` (name -> value,
 /// std_error, ci_low, ci_high), ``correlation``, ``n``, ``m``, ``aquifer``, per-row ``we``,
-/// ``p_model``, ``residuals``, and ``rms``, ``iterations``, ``status``.
+/// ``p_model``, ``residuals``, and ``rms``, ``iterations``, ``status``, ``condition_number``
+/// (of the scaled J^T J) and ``warnings`` (ill-conditioning, correlated parameters).
 #[pyfunction]
 #[pyo3(signature = (pvt, *, t_days, p, np_stb, gp_scf, wp_stb = None, wi_stb = None, gi_scf = None, p_initial, swi = 0.0, cw = 0.0, cf = 0.0, m = None, aquifer = None, fit_shape = true, fit_red = false, objective = "pressure", max_iterations = 100, tolerance = 1e-10, confidence = 0.95))]
 #[allow(clippy::too_many_arguments)]
@@ -1238,6 +1293,103 @@ fn gas_water_drive_fit<'py>(
     gas_dict(py, f)
 }
 
+/// History match of a gas reservoir: gas in place G (scf) with the aquifer constant and
+/// shape (``aquifer``'s shape parameters are the start, fitted when ``fit_shape``) by
+/// nonlinear least squares. History: ``t_days`` (days), ``p`` (psia), ``gp_scf``,
+/// ``wp_stb``; gas table: ``table_p`` (psia, ascending) with ``table_z`` (at
+/// ``temperature_f`` degF and standard conditions ``p_sc`` psia, ``t_sc`` degF) or
+/// ``table_bg`` (rb/scf). ``swi``, ``cw``, ``cf`` (1/psi) give the abnormal-pressure term
+/// Bgi ce (pi - p) (Ramagost & Farshad 1981), or ``fit_ce=True`` estimates ce (1/psi, in
+/// [0, 1e-4]) with G; ``bw`` rb/STB. Returns a dict with ``parameters`` (name -> value,
+/// std_error, ci_low, ci_high), ``correlation``, ``g`` (scf), ``ce`` (1/psi),
+/// ``aquifer``, per-row ``we`` (rb), ``p_model`` (psia), ``residuals``, and ``rms``,
+/// ``iterations``, ``status``, ``condition_number``, ``warnings``.
+#[pyfunction]
+#[pyo3(signature = (*, t_days, p, gp_scf, p_initial, table_p, table_z = None, table_bg = None, temperature_f = None, wp_stb = None, bw = 1.0, swi = 0.0, cw = 0.0, cf = 0.0, aquifer = None, fit_shape = true, fit_red = false, fit_ce = false, objective = "pressure", max_iterations = 100, tolerance = 1e-10, confidence = 0.95, p_sc = 14.696, t_sc = 60.0))]
+#[allow(clippy::too_many_arguments)]
+fn gas_history_match<'py>(
+    py: Python<'py>,
+    t_days: In<'py>,
+    p: In<'py>,
+    gp_scf: In<'py>,
+    p_initial: f64,
+    table_p: In<'py>,
+    table_z: Option<In<'py>>,
+    table_bg: Option<In<'py>>,
+    temperature_f: Option<f64>,
+    wp_stb: Option<In<'py>>,
+    bw: f64,
+    swi: f64,
+    cw: f64,
+    cf: f64,
+    aquifer: Option<PyRef<'py, Aquifer>>,
+    fit_shape: bool,
+    fit_red: bool,
+    fit_ce: bool,
+    objective: &str,
+    max_iterations: usize,
+    tolerance: f64,
+    confidence: f64,
+    p_sc: f64,
+    t_sc: f64,
+) -> PyResult<Bound<'py, PyDict>> {
+    let tp = vec1("table_p", &table_p)?;
+    let table = match (&table_z, &table_bg, temperature_f) {
+        (Some(z), None, Some(tf)) => {
+            let sc = StandardConditions::new(p_sc, t_sc)?;
+            mb::GasPvtTable::from_z(tp, vec1("table_z", z)?, tf, sc)
+        }
+        (None, Some(b), None) => mb::GasPvtTable::from_bg(tp, vec1("table_bg", b)?),
+        _ => {
+            return Err(Error::InvalidOption {
+                arg: "table_z",
+                value: "a combination of table_z, table_bg and temperature_f".into(),
+                allowed: "table_z with temperature_f, or table_bg alone",
+            }
+            .into());
+        }
+    }
+    .map_err(|e| match e {
+        Error::InvalidRecord { arg, row, message } => Error::InvalidRecord {
+            arg: format!("table_{arg}"),
+            row,
+            message,
+        },
+        o => o,
+    })?;
+    let history = mb::GasHistory::new(
+        vec1("t_days", &t_days)?,
+        vec1("p", &p)?,
+        vec1("gp_scf", &gp_scf)?,
+        opt_vec1("wp_stb", &wp_stb)?,
+        p_initial,
+    )
+    .map_err(rename_gas)?;
+    let reservoir = mb::GasReservoir::new(p_initial, swi, cw, cf, bw)?;
+    let o = match_options(
+        None,
+        parse_aquifer(&aquifer),
+        fit_shape,
+        fit_red,
+        objective,
+        max_iterations,
+        tolerance,
+        confidence,
+    )?;
+    let opts = mb::GasMatchOptions {
+        aquifer: o.aquifer,
+        fit_shape,
+        fit_red,
+        fit_ce,
+        objective: o.objective,
+        max_iterations,
+        tolerance,
+        confidence,
+    };
+    let f = py.detach(|| mb::gas_history_match(&table, &history, &reservoir, &opts))?;
+    gas_match_dict(py, f)
+}
+
 // ---- Forecast -------------------------------------------------------------------------------------
 
 /// Solution-gas-drive forecast below the bubble point by Muskat (1945): dict of per-step
@@ -1270,7 +1422,41 @@ fn muskat_forecast<'py>(
     Ok(d)
 }
 
+/// Solution-gas-drive forecast below the bubble point by Tarner's (1944) trial and error:
+/// for each pressure step the oil increment that makes Gp from the material balance equal
+/// Gp from the producing GOR (bracketed, safeguarded root find). Same inputs and dict as
+/// :func:`muskat_forecast`, plus ``iterations`` (per row) and ``max_mismatch`` (scf/STB).
+#[pyfunction]
+#[pyo3(signature = (pvt, relperm, *, p_bubble, p_end, n_steps = 100))]
+fn tarner_forecast<'py>(
+    py: Python<'py>,
+    pvt: &PvtTable,
+    relperm: PyRef<'py, super::relperm::CoreyGasOil>,
+    p_bubble: f64,
+    p_end: f64,
+    n_steps: usize,
+) -> PyResult<Bound<'py, PyDict>> {
+    let k = relperm.0;
+    let table = &pvt.inner;
+    let f = py.detach(|| mb::tarner_forecast(table, &k, p_bubble, p_end, n_steps))?;
+    let d = PyDict::new(py);
+    d.set_item("p", arr(py, f.p))?;
+    d.set_item("so", arr(py, f.so))?;
+    d.set_item("sg", arr(py, f.sg))?;
+    d.set_item("krg_over_kro", arr(py, f.krg_over_kro))?;
+    d.set_item("gor", arr(py, f.gor))?;
+    d.set_item("np_over_n", arr(py, f.np_over_n))?;
+    d.set_item("gp_over_n", arr(py, f.gp_over_n))?;
+    let it: Vec<u64> = f.iterations.iter().map(|&v| v as u64).collect();
+    d.set_item("iterations", it.into_pyarray(py))?;
+    d.set_item("max_mismatch", f.max_mismatch)?;
+    d.set_item("stopped_early", f.stopped_early)?;
+    Ok(d)
+}
+
 pub(super) fn register(m: &Bound<'_, PyModule>) -> PyResult<()> {
+    m.add_function(wrap_pyfunction!(tarner_forecast, m)?)?;
+    m.add_function(wrap_pyfunction!(gas_history_match, m)?)?;
     m.add_class::<PvtTable>()?;
     m.add_class::<Aquifer>()?;
     m.add_function(wrap_pyfunction!(veh_dimensionless_influx, m)?)?;
