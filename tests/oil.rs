@@ -151,8 +151,9 @@ fn facts_of_the_trade() {
 #[test]
 fn beggs_robinson_dead_oil_by_hand() {
     // Direct evaluation of the published form (Beggs and Robinson 1975) at 30 API, 150 degF,
-    // with scipy-free arithmetic: x = 150^-1.163 exp(6.9824 - 0.04658*30).
-    let x = 150f64.powf(-1.163) * (6.9824f64 - 0.04658 * 30.0).exp();
+    // with scipy-free arithmetic, in the paper's base-10 form:
+    // x = 150^-1.163 * 10^(3.0324 - 0.02023*30).
+    let x = 150f64.powf(-1.163) * 10f64.powf(3.0324 - 0.02023 * 30.0);
     let expect = 10f64.powf(x) - 1.0;
     let mu = dead_oil_viscosity(DeadOilViscosityMethod::BeggsRobinson, 30.0, 150.0).unwrap();
     assert!((mu - expect).abs() < 1e-12);

@@ -370,3 +370,46 @@ fn public_types_are_send_sync() {
     ok::<VolumetricInputs>();
     ok::<stocktank::units::convert::UnitMap>();
 }
+
+#[test]
+fn arps_correlations_against_the_equations_written_out() {
+    // Arps et al. (1967), API Bulletin D14, as commonly reproduced in handbooks (from memory):
+    // percent recovery; k in darcy.
+    let (phi, sw, bob, k, mu, pb, pa): (f64, f64, f64, f64, f64, f64, f64) =
+        (0.22, 0.27, 1.35, 150.0, 0.9, 2800.0, 400.0);
+    let sgd = 41.815
+        * (phi * (1.0 - sw) / bob).powf(0.1611)
+        * (k / 1000.0 / mu).powf(0.0979)
+        * sw.powf(0.3722)
+        * (pb / pa).powf(0.1741)
+        / 100.0;
+    assert!(
+        rel(
+            arps_solution_gas_drive(phi, sw, bob, k, mu, pb, pa).unwrap(),
+            sgd
+        ) < 1e-14
+    );
+    let (mu_w, mu_o, pi): (f64, f64, f64) = (0.4, 3.0, 3500.0);
+    let wd = 54.898
+        * (phi * (1.0 - sw) / bob).powf(0.0422)
+        * (k / 1000.0 * mu_w / mu_o).powf(0.0770)
+        * sw.powf(-0.1903)
+        * (pi / 1500.0).powf(-0.2159)
+        / 100.0;
+    assert!(
+        rel(
+            arps_water_drive(phi, sw, bob, k, mu_w, mu_o, pi, 1500.0).unwrap(),
+            wd
+        ) < 1e-14
+    );
+    // The validity functions check the recalled data ranges and the equations' domain only.
+    assert!(arps_solution_gas_validity(phi, sw, k, mu, pb, pa));
+    assert!(!arps_solution_gas_validity(phi, sw, k, mu, pb, pb + 1.0));
+    assert!(!arps_solution_gas_validity(phi, sw, k, f64::NAN, pb, pa));
+    assert!(arps_water_drive_validity(
+        phi, sw, k, mu_w, mu_o, pi, 1500.0
+    ));
+    assert!(!arps_water_drive_validity(
+        phi, sw, 5000.0, mu_w, mu_o, pi, 1500.0
+    ));
+}

@@ -37,6 +37,8 @@ from ._core import (
     undersaturated_oil_viscosity,
     vasquez_beggs_gas_sg_100psig,
 )
+from ._core import Gas as _Gas
+from ._core import Water as _Water
 from ._core import bo_saturated_in_range as _bo_saturated_in_range
 from ._core import bubble_point_in_range as _bubble_point_in_range
 from ._core import dead_oil_viscosity_in_range as _dead_oil_viscosity_in_range
@@ -130,17 +132,29 @@ def dead_oil_viscosity_in_range(
     return _as_bool(_dead_oil_viscosity_in_range(api, temperature_f, method=method))
 
 
-def black_oil_table(oil: Oil, p: npt.ArrayLike, *, on_violation: str = "warn") -> Any:
+def black_oil_table(
+    oil: Oil,
+    p: npt.ArrayLike,
+    *,
+    gas: Optional[_Gas] = None,
+    water: Optional[_Water] = None,
+    on_violation: str = "warn",
+) -> Any:
     """The black-oil table of ``oil`` on pressure grid ``p`` (psia, strictly increasing; the
     bubble point is inserted) as a pandas DataFrame with unit-suffixed columns and a boolean
-    ``is_pb``. ``on_violation``: ``"warn"`` (default), ``"raise"`` (ValueError naming each
-    pressure) or ``"ignore"`` for the consistency check."""
+    ``is_pb``. ``gas`` (a :class:`Gas`, e.g. with CO2/H2S/N2) gives the gas columns (Bg in
+    rcf/scf, Z, viscosity in cp, density in lbm/ft3) and the gas term of Bt and of the apparent
+    co below Pb; default a gas of ``oil.gas_sg``. ``water`` (a :class:`Water` with the oil's
+    standard conditions) gives Bw (rb/STB) and water viscosity (cp); default a brine of
+    ``oil.salinity_wt_pct``. ``on_violation``: ``"warn"`` (default), ``"raise"`` (ValueError
+    naming each pressure) or ``"ignore"`` for the consistency check."""
     import pandas as pd
 
     grid = [float(x) for x in np.asarray(p, dtype=float).ravel()]
-    cols = oil.table(grid)
+    cols = oil.table(grid, gas=gas, water=water)
     df = pd.DataFrame({_FILE_NAMES.get(k, k): v for k, v in cols.items()})
-    _handle_violations([(0, p_, r, d) for (p_, r, d) in oil.check_table(grid)], on_violation)
+    checks = oil.check_table(grid, gas=gas, water=water)
+    _handle_violations([(0, p_, r, d) for (p_, r, d) in checks], on_violation)
     return df
 
 
@@ -199,6 +213,9 @@ def black_oil_tables(
     ``mu_ob`` (cp), ``separator_p`` (psia), ``separator_t`` (degF), ``salinity_wt_pct``
     (NaN = not given); method names ``pb_method``, ``bo_method``, ``co_method``,
     ``dead_oil_viscosity_method``; standard conditions ``p_sc`` (psia), ``t_sc`` (degF);
+    ``gas`` a :class:`Gas` for every well or a sequence of them, one per well (default: a gas
+    of each well's ``gas_sg``), for the gas columns; ``water`` likewise :class:`Water` (with
+    the standard conditions ``p_sc``, ``t_sc``; instead of ``salinity_wt_pct``);
     ``errors="raise"|"coerce"`` (coerce: a failing well gets NaN rows and is listed in
     ``df.attrs["errors"]``). ``well`` optionally names the wells (default 0..n-1).
 

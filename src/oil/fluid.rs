@@ -24,12 +24,14 @@ use super::bubble_point::{
     vasquez_beggs_gas_sg_100psig,
 };
 use super::fvf::{
-    bo_saturated, bo_saturated_drs, bo_saturated_drs_given, bo_undersaturated, co_undersaturated,
+    apparent_compressibility, bo_saturated, bo_saturated_drs, bo_saturated_drs_given,
+    bo_undersaturated, co_undersaturated,
 };
 use super::viscosity::{dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity};
 use super::{BoMethod, CoMethod, DeadOilViscosityMethod, PbMethod};
 use crate::error::{Error, Result, non_negative, positive, temperature_f};
-use crate::units::StandardConditions;
+use crate::gas::Gas;
+use crate::units::{FT3_PER_BBL, StandardConditions};
 
 /// The correlation chosen for each property family.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
@@ -656,6 +658,55 @@ impl OilModel {
             o.api,
             o.temperature_f,
         )
+    }
+
+    /// Oil compressibility at `p`, 1/psi: the undersaturated co at and above Pb, the apparent
+    /// (black-oil) compressibility below it, where the gas the oil liberates expands too.
+    ///
+    /// The same values as the `co` column of [`crate::oil::BlackOilTable`] built with `gas`.
+    ///
+    /// # Formula
+    /// ```text
+    /// p >= Pb:  co = -(1/Bo) (dBo/dp)_T            (the chosen co correlation, e.g. Vasquez–Beggs)
+    /// p <  Pb:  co = -(1/Bo) dBo/dp + (Bg/Bo) dRs/dp   (Bg in rb/scf, along the saturated curve)
+    /// ```
+    ///
+    /// # Arguments
+    /// * `p` - pressure, psia, > 0.
+    /// * `gas` - the liberated gas, for Bg below Pb (e.g. `Gas::new(oil.gas_sg)`, the
+    ///   table builder's default); unused at and above Pb.
+    ///
+    /// # Returns
+    /// co, 1/psi.
+    ///
+    /// # Errors
+    /// [`Error::InvalidArgument`] naming `p`.
+    ///
+    /// # Examples
+    /// ```
+    /// use stocktank::gas::Gas;
+    /// let m = stocktank::oil::Oil::new(35.0, 0.8, 600.0, 200.0).unwrap().model().unwrap();
+    /// let g = Gas::new(0.8).unwrap();
+    /// assert_eq!(m.co(m.pb + 500.0, &g).unwrap(), m.co_undersaturated(m.pb + 500.0).unwrap());
+    /// // Below Pb the liberated gas makes the oil far more compressible.
+    /// assert!(m.co(m.pb - 500.0, &g).unwrap() > 10.0 * m.co(m.pb, &g).unwrap());
+    /// ```
+    ///
+    /// # References
+    /// Vasquez, M., Beggs, H.D. (1980). Correlations for fluid physical property prediction.
+    /// JPT 32(6), 968–970; Perrine (1956) and Martin (1959) for the apparent compressibility
+    /// (see [`crate::oil::apparent_compressibility`]).
+    pub fn co(&self, p: f64, gas: &Gas) -> Result<f64> {
+        positive("p", p)?;
+        if p >= self.pb {
+            return self.co_undersaturated(p);
+        }
+        let o = &self.oil;
+        let rs = self.rs(p)?;
+        let bo = self.bo_saturated(rs)?;
+        let (drs, dbo) = self.saturated_slopes(p, rs, bo)?;
+        let bg_rb = gas.bg(p, o.temperature_f, &o.standard_conditions)? / FT3_PER_BBL;
+        apparent_compressibility(bo, dbo, bg_rb, drs)
     }
 
     /// Oil viscosity at `p`, cp (live saturated below Pb, undersaturated above; calibrated).

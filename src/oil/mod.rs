@@ -36,7 +36,8 @@ pub use fvf::{
     bo_undersaturated, co_undersaturated, oil_density, total_fvf,
 };
 pub use table::{
-    BlackOilTable, LongTable, Rule, Violation, build_long, build_long_results, build_tables,
+    BlackOilTable, LongTable, Rule, Violation, build_long, build_long_results,
+    build_long_results_with, build_tables,
 };
 pub use viscosity::{dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity};
 

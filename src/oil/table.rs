@@ -640,6 +640,40 @@ pub fn build_long_results(
     pressures: &[f64],
     on_error: OnError,
 ) -> Result<LongTable> {
+    build_long_results_with(oils, pressures, on_error, |_, o| {
+        BlackOilTable::build(o, pressures)
+    })
+}
+
+/// As [`build_long_results`], each table built by `build(k, oil)` for the fluid of row `k`
+/// (e.g. [`BlackOilTable::build_with`] and the well's own gas and water descriptions).
+///
+/// # Errors
+/// As [`build_long`]; an error of `build` is handled like a failed description.
+///
+/// # Examples
+/// ```
+/// use stocktank::array::OnError;
+/// use stocktank::gas::Gas;
+/// use stocktank::oil::{table::build_long_results_with, BlackOilTable, Oil};
+/// use stocktank::water::Water;
+/// let oils = vec![Oil::new(35.0, 0.8, 600.0, 200.0), Oil::new(25.0, 0.7, 300.0, 150.0)];
+/// let gas = Gas::new(0.8).unwrap().with_impurities(0.1, 0.0, 0.0).unwrap();
+/// let long = build_long_results_with(oils, &[1000.0], OnError::Raise, |_, o| {
+///     BlackOilTable::build_with(&o.model()?, &gas, &Water::new(3.0)?, &[1000.0])
+/// })
+/// .unwrap();
+/// assert_eq!(long.pb.len(), 2);
+/// ```
+pub fn build_long_results_with<F>(
+    oils: Vec<Result<Oil>>,
+    pressures: &[f64],
+    on_error: OnError,
+    build: F,
+) -> Result<LongTable>
+where
+    F: Fn(usize, &Oil) -> Result<BlackOilTable> + Sync,
+{
     check_grid(pressures)?;
     if on_error == OnError::Raise {
         if let Some(e) = oils.iter().find_map(|o| o.as_ref().err()) {
@@ -648,7 +682,8 @@ pub fn build_long_results(
     }
     let tables: Vec<Result<BlackOilTable>> = oils
         .into_par_iter()
-        .map(|o| o.and_then(|o| BlackOilTable::build(&o, pressures)))
+        .enumerate()
+        .map(|(k, o)| o.and_then(|o| build(k, &o)))
         .collect();
     let mut out = LongTable {
         columns: vec![Vec::new(); COLUMNS.len()],

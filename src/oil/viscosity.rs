@@ -8,7 +8,7 @@ use crate::error::{Error, Result, non_negative, positive};
 ///
 /// # Formula
 /// ```text
-/// Beggs–Robinson (1975): mu_od = 10^x - 1,  x = T^-1.163 exp(6.9824 - 0.04658 API)
+/// Beggs–Robinson (1975): mu_od = 10^x - 1,  x = T^-1.163 10^(3.0324 - 0.02023 API)
 /// Glaso (1980):          mu_od = 3.141e10 T^-3.444 (log API)^(10.313 log T - 36.447)
 /// Beal (1946), Standing's fit (1981):
 ///                        mu_od = (0.32 + 1.8e7 / API^4.53) (360 / (T + 200))^a,
@@ -58,7 +58,9 @@ pub fn dead_oil_viscosity(method: DeadOilViscosityMethod, api: f64, t_f: f64) ->
     Ok(match method {
         DeadOilViscosityMethod::BeggsRobinson => {
             positive("temperature_f", t_f)?;
-            let x = t_f.powf(-1.163) * (6.9824 - 0.04658 * api).exp();
+            // The published base-10 constants (a natural-log rewrite with rounded
+            // constants, 6.9824 and 0.04658, is off by up to 0.05%).
+            let x = t_f.powf(-1.163) * 10f64.powf(3.0324 - 0.02023 * api);
             10f64.powf(x) - 1.0
         }
         DeadOilViscosityMethod::Glaso => {

@@ -1,15 +1,19 @@
 //! Python bindings of [`crate::oil`]: conversion only. Array functions lift the scalar
 //! kernels with the GIL released; `Oil` is a frozen, comparable, picklable description.
 
+use super::gas::Gas as PyGas;
+use super::water::Water as PyWater;
 use super::{In, call, on_error};
 use crate::array::{OnError, broadcast_shape, lift};
 use crate::error::Error;
-use crate::oil::table::{COLUMNS, build_long_results};
+use crate::gas::Gas as CoreGas;
+use crate::oil::table::{COLUMNS, build_long_results_with};
 use crate::oil::{
     self as core, BlackOilTable, BoMethod, Calibration, CoMethod, DeadOilViscosityMethod, Methods,
     Oil as CoreOil, PbMethod,
 };
 use crate::units::StandardConditions;
+use crate::water::Water as CoreWater;
 use ndarray::ArrayViewD;
 use numpy::IntoPyArray;
 use pyo3::prelude::*;
@@ -460,6 +464,98 @@ fn separator(p: Option<f64>, t: Option<f64>) -> PyResult<Option<(f64, f64)>> {
     }
 }
 
+/// One `Gas` for every well, or a sequence of them (one per well), as given to `gas=`.
+fn gas_arg(gas: Option<&Bound<'_, PyAny>>) -> PyResult<Option<Vec<CoreGas>>> {
+    let Some(g) = gas else { return Ok(None) };
+    if let Ok(one) = g.cast::<PyGas>() {
+        return Ok(Some(vec![one.get().0]));
+    }
+    per_item(g, "gas", |x| x.cast::<PyGas>().ok().map(|v| v.get().0)).map(Some)
+}
+
+/// One `Water` for every well, or a sequence of them (one per well), as given to `water=`.
+fn water_arg(water: Option<&Bound<'_, PyAny>>) -> PyResult<Option<Vec<CoreWater>>> {
+    let Some(w) = water else { return Ok(None) };
+    if let Ok(one) = w.cast::<PyWater>() {
+        return Ok(Some(vec![one.get().0.clone()]));
+    }
+    per_item(w, "water", |x| {
+        x.cast::<PyWater>().ok().map(|v| v.get().0.clone())
+    })
+    .map(Some)
+}
+
+fn per_item<T>(
+    seq: &Bound<'_, PyAny>,
+    arg: &'static str,
+    get: impl Fn(&Bound<'_, PyAny>) -> Option<T>,
+) -> PyResult<Vec<T>> {
+    let kind = if arg == "gas" { "Gas" } else { "Water" };
+    let items = seq.try_iter().map_err(|_| {
+        pyo3::exceptions::PyTypeError::new_err(format!(
+            "`{arg}` must be a {kind} or a sequence of {kind} (one per well), got {}",
+            seq.get_type()
+                .name()
+                .map(|n| n.to_string())
+                .unwrap_or_default()
+        ))
+    })?;
+    let mut out = Vec::new();
+    for (i, x) in items.enumerate() {
+        let x = x?;
+        out.push(get(&x).ok_or_else(|| {
+            pyo3::exceptions::PyTypeError::new_err(format!(
+                "`{arg}`[{i}] must be a {kind}, got {}",
+                x.get_type()
+                    .name()
+                    .map(|n| n.to_string())
+                    .unwrap_or_default()
+            ))
+        })?);
+    }
+    Ok(out)
+}
+
+/// The table of one oil with optional gas and water descriptions (defaults as
+/// `BlackOilTable::build`: a gas of the oil's gas gravity, a brine of its salinity).
+fn build_one(
+    oil: &CoreOil,
+    gas: Option<&CoreGas>,
+    water: Option<&CoreWater>,
+    p: &[f64],
+) -> crate::Result<BlackOilTable> {
+    if gas.is_none() && water.is_none() {
+        return BlackOilTable::build(oil, p);
+    }
+    let g = match gas {
+        Some(g) => *g,
+        None => CoreGas::new(oil.gas_sg)?,
+    };
+    let w = match water {
+        Some(w) => {
+            let (a, b) = (w.standard_conditions(), oil.standard_conditions);
+            if a != b {
+                let (value, reason) = if a.p_psia != b.p_psia {
+                    (
+                        a.p_psia,
+                        "the water's p_sc (psia) differs from the oil's; give both the same standard conditions",
+                    )
+                } else {
+                    (
+                        a.t_f,
+                        "the water's t_sc (degF) differs from the oil's; give both the same standard conditions",
+                    )
+                };
+                return Err(Error::invalid("water", value, reason));
+            }
+            w.clone()
+        }
+        None => CoreWater::new(oil.salinity_wt_pct)?
+            .with_standard_conditions(oil.standard_conditions)?,
+    };
+    BlackOilTable::build_with(&oil.model()?, &g, &w, p)
+}
+
 fn table_dict<'py>(py: Python<'py>, t: BlackOilTable) -> PyResult<Bound<'py, PyDict>> {
     let d = PyDict::new(py);
     let is_pb: Vec<bool> = (0..t.p.len()).map(|i| i == t.pb_index).collect();
@@ -643,18 +739,55 @@ impl Oil {
             lift(["p"], [p], oe, |[p]| m.viscosity(p))
         })
     }
+    /// Oil compressibility at pressure p (psia), 1/psi: the undersaturated co at and above
+    /// Pb, the apparent (black-oil) compressibility below it (gas liberation counted with
+    /// ``gas``'s Bg; default a gas of the oil's ``gas_sg``). Same values as the table's ``co``.
+    #[pyo3(signature = (p, *, gas = None, errors = "raise"))]
+    fn co(
+        &self,
+        py: Python<'_>,
+        p: In<'_>,
+        gas: Option<PyRef<'_, PyGas>>,
+        errors: &str,
+    ) -> PyResult<Py<PyAny>> {
+        let (m, oe) = (self.0.model()?, on_error(errors)?);
+        let g = match gas {
+            Some(g) => g.0,
+            None => CoreGas::new(self.0.gas_sg)?,
+        };
+        call(py, [&p], move |[p]| lift(["p"], [p], oe, |[p]| m.co(p, &g)))
+    }
     /// The black-oil table on the pressure grid p (psia, strictly increasing; Pb inserted):
     /// a dict of numpy arrays (see the column names in ``stocktank.oil.TABLE_UNITS``) plus a
-    /// boolean ``is_pb``.
-    fn table<'py>(&self, py: Python<'py>, p: Vec<f64>) -> PyResult<Bound<'py, PyDict>> {
+    /// boolean ``is_pb``. ``gas`` (a ``Gas``) gives Bg, Z, gas viscosity and density (default:
+    /// a gas of the oil's ``gas_sg``); ``water`` (a ``Water``, same standard conditions as
+    /// the oil) gives Bw and water viscosity (default: a brine of the oil's salinity).
+    #[pyo3(signature = (p, *, gas = None, water = None))]
+    fn table<'py>(
+        &self,
+        py: Python<'py>,
+        p: Vec<f64>,
+        gas: Option<PyRef<'py, PyGas>>,
+        water: Option<PyRef<'py, PyWater>>,
+    ) -> PyResult<Bound<'py, PyDict>> {
         let o = self.0;
-        let t = py.detach(move || BlackOilTable::build(&o, &p))?;
+        let (g, w) = (gas.map(|g| g.0), water.map(|w| w.0.clone()));
+        let t = py.detach(move || build_one(&o, g.as_ref(), w.as_ref(), &p))?;
         table_dict(py, t)
     }
     /// The consistency check of the table on grid p: a list of (p_psia, rule, detail).
-    fn check_table<'py>(&self, py: Python<'py>, p: Vec<f64>) -> PyResult<Bound<'py, PyList>> {
+    /// ``gas`` and ``water`` as in ``table``.
+    #[pyo3(signature = (p, *, gas = None, water = None))]
+    fn check_table<'py>(
+        &self,
+        py: Python<'py>,
+        p: Vec<f64>,
+        gas: Option<PyRef<'py, PyGas>>,
+        water: Option<PyRef<'py, PyWater>>,
+    ) -> PyResult<Bound<'py, PyList>> {
         let o = self.0;
-        let v = py.detach(move || BlackOilTable::build(&o, &p).map(|t| t.check()))?;
+        let (g, w) = (gas.map(|g| g.0), water.map(|w| w.0.clone()));
+        let v = py.detach(move || build_one(&o, g.as_ref(), w.as_ref(), &p).map(|t| t.check()))?;
         let items: Vec<(f64, &'static str, String)> = v
             .into_iter()
             .map(|x| (x.p_psia, x.rule.name(), x.detail))
@@ -745,12 +878,16 @@ fn per_well(
 /// `separator_p`, `separator_t` means "not given" for that well. Returns a dict with the
 /// columns, ``well`` (int64 row index of the well), ``is_pb``, ``pb`` and ``rsi`` per well,
 /// ``violations`` (list of (well, p_psia, rule, detail)) and ``errors`` (list of (well, message)).
+/// ``gas``: a ``Gas`` for every well or a sequence of them, one per well (default: a gas of
+/// each well's ``gas_sg``); ``water``: likewise ``Water`` (default: a brine of
+/// ``salinity_wt_pct``; give one or the other), with the standard conditions ``p_sc``, ``t_sc``.
 #[pyfunction]
 #[pyo3(signature = (
     p, api, gas_sg, temperature_f, *, gor = None, pb = None, bob = None, mu_ob = None,
     separator_p = None, separator_t = None, salinity_wt_pct = None,
     pb_method = "standing", bo_method = "standing", co_method = "vasquez_beggs",
-    dead_oil_viscosity_method = "beggs_robinson", p_sc = 14.696, t_sc = 60.0, errors = "raise"
+    dead_oil_viscosity_method = "beggs_robinson", p_sc = 14.696, t_sc = 60.0, gas = None,
+    water = None, errors = "raise"
 ))]
 #[allow(clippy::too_many_arguments)]
 fn black_oil_tables<'py>(
@@ -772,9 +909,18 @@ fn black_oil_tables<'py>(
     dead_oil_viscosity_method: &str,
     p_sc: f64,
     t_sc: f64,
+    gas: Option<&Bound<'py, PyAny>>,
+    water: Option<&Bound<'py, PyAny>>,
     errors: &str,
 ) -> PyResult<Bound<'py, PyDict>> {
     let m = methods(pb_method, bo_method, co_method, dead_oil_viscosity_method)?;
+    let gases = gas_arg(gas)?;
+    let waters = water_arg(water)?;
+    if waters.is_some() && salinity_wt_pct.is_some() {
+        return Err(pyo3::exceptions::PyTypeError::new_err(
+            "give `salinity_wt_pct` or `water`, not both (a Water carries its own salinity)",
+        ));
+    }
     let (s, oe) = (sc(p_sc, t_sc)?, on_error(errors)?);
     let nan = ndarray::arr0(f64::NAN).into_dyn();
     let zero = ndarray::arr0(0.0).into_dyn();
@@ -842,7 +988,22 @@ fn black_oil_tables<'py>(
                 .map_err(|e| e.at_index(&[k]))
             })
             .collect();
-        build_long_results(oils, &p, oe)
+        let check = |len: Option<usize>, arg: &str| -> crate::Result<()> {
+            match len {
+                Some(l) if l != 1 && l != n => Err(Error::Shape(format!(
+                    "`{arg}` has {l} elements but there are {n} wells"
+                ))),
+                _ => Ok(()),
+            }
+        };
+        check(gases.as_ref().map(Vec::len), "gas")?;
+        check(waters.as_ref().map(Vec::len), "water")?;
+        let nth = |len: usize, k: usize| if len == 1 { 0 } else { k };
+        build_long_results_with(oils, &p, oe, |k, o| {
+            let g = gases.as_ref().map(|g| &g[nth(g.len(), k)]);
+            let w = waters.as_ref().map(|w| &w[nth(w.len(), k)]);
+            build_one(o, g, w, &p)
+        })
     })?;
     let d = PyDict::new(py);
     d.set_item("well", long.well.into_pyarray(py))?;

@@ -9,7 +9,8 @@
 //! # Method
 //! 1. Each input is sampled independently from its [`Distribution`] (reproducible by seed).
 //! 2. Inputs that take part in a correlation are re-paired by Iman and Conover (1982): van
-//!    der Waerden scores Phi^-1(i/(n+1)), permuted independently per input, are transformed
+//!    der Waerden scores Phi^-1(i/(n+1)), permuted independently per input (Fisher–Yates
+//!    shuffle; the index draw's bias is below n / 2^64), are transformed
 //!    by `P Q^-1` (Cholesky factors of the target and of the scores' sample correlation) and
 //!    each input's sorted samples are placed in the rank order of its transformed scores.
 //!    The marginal distributions are untouched. The target is a rank (Spearman) correlation;
@@ -23,6 +24,10 @@
 //! # References
 //! - Iman, R.L., Conover, W.J. (1982). A distribution-free approach to inducing rank
 //!   correlation among input variables. Commun. Statist. Simula. Computa. 11(3), 311–334.
+//! - Durstenfeld, R. (1964). Algorithm 235: Random permutation. Communications of the ACM
+//!   7(7), 420 (the Fisher–Yates shuffle in place).
+//! - Lemire, D. (2019). Fast random integer generation in an interval. ACM Transactions on
+//!   Modeling and Computer Simulation 29(1), 3 (multiply-shift index draw).
 //! - Pearson, K. (1907). On further methods of determining correlation. Drapers' Company
 //!   Research Memoirs, Biometric Series IV.
 //! - Murtha, J.A. (1994). Incorporating historical data into Monte Carlo simulation.
@@ -340,18 +345,6 @@ where
     parts.iter().sum()
 }
 
-/// Order-preserving 64-bit key of an f64 (a bijection; NaN sorts last).
-#[inline]
-fn key64(x: f64) -> u64 {
-    let b = x.to_bits();
-    if b >> 63 == 1 { !b } else { b | (1 << 63) }
-}
-
-#[inline]
-fn from_key64(k: u64) -> f64 {
-    f64::from_bits(if k >> 63 == 1 { k & !(1 << 63) } else { !k })
-}
-
 /// Order-preserving 32-bit key of an f64 through its nearest f32 (monotone: a <= b gives
 /// key(a) <= key(b); values closer than f32 resolution share a key and are ordered by index).
 #[inline]
@@ -368,6 +361,18 @@ fn key_order(keys: impl Iterator<Item = u32>) -> Vec<u32> {
         .collect();
     packed.sort_unstable();
     packed.into_iter().map(|v| v as u32).collect()
+}
+
+/// Order-preserving 64-bit key of an f64 (a bijection; NaN sorts last).
+#[inline]
+fn key64(x: f64) -> u64 {
+    let b = x.to_bits();
+    if b >> 63 == 1 { !b } else { b | (1 << 63) }
+}
+
+#[inline]
+fn from_key64(k: u64) -> f64 {
+    f64::from_bits(if k >> 63 == 1 { k & !(1 << 63) } else { !k })
 }
 
 /// Sort f64 values (no NaN) exactly, through their order-preserving integer keys.
@@ -444,12 +449,15 @@ fn iman_conover_impl(
     let mut scores: Vec<Vec<f64>> = (0..k)
         .into_par_iter()
         .map(|j| {
-            // A uniformly random permutation: the order of random 32-bit keys.
+            // A uniformly random permutation by Fisher–Yates (Durstenfeld 1964), the index
+            // drawn by Lemire's (2019) multiply-shift; O(n), no sort.
             let mut rng = Rng::new(seed, 0x1C_0000 + j as u64, 0);
-            key_order((0..n).map(|_| (rng.next_u64() >> 32) as u32))
-                .into_iter()
-                .map(|i| base[i as usize])
-                .collect::<Vec<f64>>()
+            let mut s = base.clone();
+            for i in (1..n).rev() {
+                let r = ((rng.next_u64() as u128 * (i as u128 + 1)) >> 64) as usize;
+                s.swap(i, r);
+            }
+            s
         })
         .collect();
     drop(base);
@@ -628,6 +636,23 @@ pub fn percentiles(data: &mut [f64], q: &[f64]) -> Result<Vec<f64>> {
             }
         })
         .collect())
+}
+
+/// The tornado's cumulative probabilities: P90 (low), P50, P10 (high).
+const TORNADO_Q: [f64; 3] = [0.1, 0.5, 0.9];
+
+/// Quantile `q` of an ascending, non-empty sample; the same interpolation as [`percentiles`].
+fn quantile_sorted(sorted: &[f64], q: f64) -> f64 {
+    let n = sorted.len();
+    let h = (n - 1) as f64 * q;
+    let lo = (h.floor() as usize).min(n - 1);
+    let frac = h - lo as f64;
+    let a = sorted[lo];
+    if frac > 0.0 && lo + 1 < n {
+        a + frac * (sorted[lo + 1] - a)
+    } else {
+        a
+    }
 }
 
 /// Place the order statistics `idx` (sorted, unique, relative to `data`) by nested
@@ -847,6 +872,14 @@ pub fn probabilistic_in_place(
             None => Vec::new(),
         })
         .collect();
+    // Percentiles of the sorted (correlated) columns, before their re-pairing.
+    let sorted_qs: Vec<Option<[f64; 3]>> = (0..6)
+        .map(|j| {
+            active
+                .contains(&j)
+                .then(|| TORNADO_Q.map(|q| quantile_sorted(&cols[j], q)))
+        })
+        .collect();
     // Correlate the inputs that take part in a correlation.
     if let Some(c) = correlation {
         if !active.is_empty() {
@@ -884,12 +917,17 @@ pub fn probabilistic_in_place(
         Some(r) => Some(summarize(r)?),
         None => None,
     };
-    // Tornado: each input at its P90/P10, the others at their P50.
+    // Tornado: each input at its P90/P10, the others at their P50 (the correlated inputs'
+    // percentiles were read from their sorted samples before the re-pairing).
     let qs: Vec<[f64; 3]> = cols[..6]
         .par_iter()
-        .map(|c| {
+        .enumerate()
+        .map(|(j, c)| {
+            if let Some(q) = sorted_qs[j] {
+                return q;
+            }
             let mut copy = c.clone();
-            let p = percentiles(&mut copy, &[0.1, 0.5, 0.9]).unwrap_or_else(|_| vec![f64::NAN; 3]);
+            let p = percentiles(&mut copy, &TORNADO_Q).unwrap_or_else(|_| vec![f64::NAN; 3]);
             [p[0], p[1], p[2]]
         })
         .collect();
