@@ -614,8 +614,36 @@ pub fn oil_density(
     positive("bo", bo)?;
     positive("gas_sg", gas_sg)?;
     let oil_sg = sg_from_api(positive("api", api)?)?;
-    let rho_air_sc = AIR_MOLAR_MASS * sc.p_psia / (R_FIELD * sc.t_r());
-    Ok((WATER_DENSITY_60F * oil_sg + rs * gas_sg * rho_air_sc / FT3_PER_BBL) / bo)
+    Ok(OilDensity::new(oil_sg, gas_sg, sc).at(rs, bo))
+}
+
+/// The mass balance of [`oil_density`] for one oil, with the stock-tank oil mass and the
+/// mass of one scf of its gas computed once: the one implementation behind
+/// [`oil_density`], for a pressure sweep.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct OilDensity {
+    /// Stock-tank oil mass, lbm per ft3 of stock-tank oil.
+    oil: f64,
+    /// Dissolved-gas mass per (scf/STB) of Rs, lbm per ft3 of stock-tank oil.
+    gas: f64,
+}
+
+impl OilDensity {
+    /// The oil of specific gravity `oil_sg` (water = 1) with gas of `gas_sg` (air = 1).
+    #[inline]
+    pub(crate) fn new(oil_sg: f64, gas_sg: f64, sc: &StandardConditions) -> Self {
+        let rho_air_sc = AIR_MOLAR_MASS * sc.p_psia / (R_FIELD * sc.t_r());
+        Self {
+            oil: WATER_DENSITY_60F * oil_sg,
+            gas: gas_sg * rho_air_sc / FT3_PER_BBL,
+        }
+    }
+
+    /// Density (lbm/ft3) at solution GOR `rs` (scf/STB) and FVF `bo` (rb/STB).
+    #[inline(always)]
+    pub(crate) fn at(&self, rs: f64, bo: f64) -> f64 {
+        (self.oil + rs * self.gas) / bo
+    }
 }
 
 #[cfg(test)]

@@ -60,11 +60,14 @@
 //! `co_method = petrosky_farshad` (always positive) are the usual remedies.
 
 use super::fluid::{Oil, OilModel};
-use super::fvf::{apparent_compressibility, oil_density, total_fvf};
+use super::fvf::{OilDensity, apparent_compressibility, oil_density, total_fvf};
+use super::sg_from_api;
 use crate::array::OnError;
 use crate::error::{Error, Result};
 use crate::fastmath;
-use crate::gas::{Gas, LeeGonzalezEakin, ViscosityMethod as GasViscosityMethod, gas_density};
+use crate::gas::{
+    Gas, GasIsothermVolumetrics, LeeGonzalezEakin, ViscosityMethod as GasViscosityMethod,
+};
 use crate::units::FT3_PER_BBL;
 use crate::water::Water;
 use rayon::prelude::*;
@@ -280,6 +283,10 @@ fn fill(
         _ => None,
     };
     let fast_above = model.has_co_coefficient();
+    let gas_pv = GasIsothermVolumetrics::new(t, gas.gas_sg(), &sc)?;
+    let rho_o = OilDensity::new(sg_from_api(oil.api)?, oil.gas_sg, &sc);
+    // Rs, Bo and gas_sg were validated with the model; oil_density then cannot fail on them.
+    let density_checked = oil.gas_sg > 0.0 && oil.api > 0.0;
     let mut co_below_pb = f64::NAN;
     // Below and at Pb, along the saturated curve: dBo/dp = dBo/dRs * dRs/dp.
     let apparent_co = |q: f64, rs: f64, bo: f64, bg_rb: f64| -> Result<f64> {
@@ -291,8 +298,12 @@ fn fill(
             Ok(z) => *z,
             Err(e) => return Err(e.clone()),
         };
-        let bg = crate::gas::bg(pi, t, z, &sc)?;
-        let rho_g = gas_density(pi, t, z, gas.gas_sg())?;
+        if !(z > 0.0 && z.is_finite()) {
+            // Let the checked function name the bad value.
+            crate::gas::bg(pi, t, z, &sc)?;
+        }
+        let bg = gas_pv.bg(pi, z);
+        let rho_g = gas_pv.density(pi, z);
         let mu_g = match &lge {
             Some(lge) => lge.viscosity(rho_g)?,
             None => gas.viscosity(pi, t)?,
@@ -331,7 +342,11 @@ fn fill(
         rs_c[i] = rs;
         bo_c[i] = bo;
         co_c[i] = co;
-        rho_o_c[i] = oil_density(rs, bo, oil.gas_sg, oil.api, &sc)?;
+        rho_o_c[i] = if density_checked && rs >= 0.0 && bo > 0.0 {
+            rho_o.at(rs, bo)
+        } else {
+            oil_density(rs, bo, oil.gas_sg, oil.api, &sc)?
+        };
         mu_o_c[i] = mu_o;
         bg_c[i] = bg;
         z_c[i] = z;
