@@ -157,7 +157,7 @@ impl LeeGonzalezEakin {
     fn at_checked_density(&self, density_lbm_ft3: f64) -> f64 {
         // rho^Y as exp(Y ln rho): both inline and vectorise (crate::fastmath).
         let rho = density_lbm_ft3 / LBM_FT3_PER_G_CC;
-        1e-4 * self.k * fastmath::exp(self.x * fastmath::pow_positive(rho, self.y))
+        1e-4 * self.k * fastmath::exp_scalar(self.x * fastmath::pow_positive_scalar(rho, self.y))
     }
 }
 

@@ -309,7 +309,10 @@ impl StandingRs {
     /// Rs at `p` (psia, > 0, checked by the caller), scf/STB.
     #[inline(always)]
     pub(crate) fn at(&self, p: f64) -> f64 {
-        self.gas_sg * fastmath::exp((fastmath::ln(p / 18.2 + 1.4) + self.a_ln10) * (1.0 / 0.83))
+        self.gas_sg
+            * fastmath::exp_scalar(
+                (fastmath::ln_scalar(p / 18.2 + 1.4) + self.a_ln10) * (1.0 / 0.83),
+            )
     }
 }
 

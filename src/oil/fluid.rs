@@ -422,7 +422,7 @@ impl Oil {
                 Ok(a) if bob > 0.0 && pb > 0.0 => a,
                 _ => f64::NAN,
             },
-            ln_pb: fastmath::ln(pb),
+            ln_pb: fastmath::ln_scalar(pb),
         };
         Ok(OilModel {
             oil: *self,
@@ -669,7 +669,7 @@ impl OilModel {
     #[inline]
     pub fn bo(&self, p: f64) -> Result<f64> {
         if p > self.pb && p.is_finite() && self.has_co_coefficient() {
-            return Ok(self.bo_above_pb(p, fastmath::ln(p)));
+            return Ok(self.bo_above_pb(p, fastmath::ln_scalar(p)));
         }
         if p > self.pb {
             let o = &self.oil;
@@ -731,7 +731,7 @@ impl OilModel {
     #[inline]
     pub fn viscosity(&self, p: f64) -> Result<f64> {
         if p > self.pb && p.is_finite() {
-            return Ok(self.viscosity_above_pb(p, fastmath::ln(p)));
+            return Ok(self.viscosity_above_pb(p, fastmath::ln_scalar(p)));
         }
         if p > self.pb {
             undersaturated_oil_viscosity(p, self.pb, self.report.mu_ob_cp)

@@ -246,7 +246,7 @@ impl StandingBo {
     /// Bo (rb/STB) at a correlating group `f` >= 0.
     #[inline(always)]
     pub(crate) fn at_group(&self, f: f64) -> f64 {
-        0.9759 + 0.00012 * fastmath::pow_positive(f, 1.2)
+        0.9759 + 0.00012 * fastmath::pow_positive_scalar(f, 1.2)
     }
 
     /// dBo/dRs at `rs` given `bo` = Bo(rs): Bo - 0.9759 = 0.00012 F^1.2, so
@@ -372,7 +372,7 @@ pub fn co_undersaturated(
 pub(crate) fn co_with_coefficient(method: CoMethod, a: f64, p: f64) -> f64 {
     match method {
         CoMethod::VasquezBeggs => a / p,
-        CoMethod::PetroskyFarshad => a * fastmath::pow_positive(p, -0.5906),
+        CoMethod::PetroskyFarshad => a * fastmath::pow_positive_scalar(p, -0.5906),
     }
 }
 
@@ -383,11 +383,14 @@ pub(crate) fn co_with_coefficient(method: CoMethod, a: f64, p: f64) -> f64 {
 pub(crate) fn bo_ratio_with_coefficient(method: CoMethod, a: f64, ln_p: f64, ln_pb: f64) -> f64 {
     match method {
         // Bo = Bob (p / Pb)^-a
-        CoMethod::VasquezBeggs => fastmath::exp(-a * (ln_p - ln_pb)),
+        CoMethod::VasquezBeggs => fastmath::exp_scalar(-a * (ln_p - ln_pb)),
         // Bo = Bob exp(-a (p^0.4094 - Pb^0.4094) / 0.4094)
         CoMethod::PetroskyFarshad => {
-            let (x, xb) = (fastmath::exp(0.4094 * ln_p), fastmath::exp(0.4094 * ln_pb));
-            fastmath::exp(-a * (x - xb) / 0.4094)
+            let (x, xb) = (
+                fastmath::exp_scalar(0.4094 * ln_p),
+                fastmath::exp_scalar(0.4094 * ln_pb),
+            );
+            fastmath::exp_scalar(-a * (x - xb) / 0.4094)
         }
     }
 }
@@ -477,7 +480,7 @@ pub fn bo_undersaturated(
         ));
     }
     let a = co_coefficient(method, rsb, gas_sg, api, t_f)?;
-    let (ln_p, ln_pb) = (fastmath::ln(p), fastmath::ln(pb));
+    let (ln_p, ln_pb) = (fastmath::ln_scalar(p), fastmath::ln_scalar(pb));
     Ok(bob * bo_ratio_with_coefficient(method, a, ln_p, ln_pb))
 }
 

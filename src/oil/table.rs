@@ -63,13 +63,14 @@
 //! One evaluation loop fills every table: what depends on the fluid only (the oil model's
 //! prepared correlations, the Dranchuk–Abou-Kassem isotherm, the gas viscosity's temperature
 //! terms, the Bg and density factors, the water's standard-condition divisor) is set up once
-//! per fluid; per pressure, each power law costs one [`crate::fastmath::ln`] and one
-//! [`crate::fastmath::exp`]. [`build_long_results`] allocates the long columns once, fills
+//! per fluid; per pressure, each power law costs one logarithm and one exponential
+//! ([`crate::fastmath::ln_scalar`], [`crate::fastmath::exp_scalar`]: one value at a time the
+//! system library's FMA versions beat the branch-free [`crate::fastmath::exp`] built for the
+//! baseline target). [`build_long_results`] allocates the long columns once, fills
 //! each fluid's rows in place (in parallel over fluids, with per-thread scratch buffers) and
 //! checks them while they are in cache; no table is allocated or copied. The results are
-//! those of the scalar kernels to a few 1e-15 relative (the fast exp / ln are within 3 / 1 ulp
-//! of the system library's); `co` below Pb, a difference of two terms, differs by up to 1e-15
-//! of its well's largest value.
+//! those of the earlier power-function forms to a few 1e-15 relative; `co` below Pb, a
+//! difference of two terms, differs by up to about 1e-15 of its well's largest value.
 //!
 //! Floor (measured with `benches/bench_blackoil.py` and `perf` on the project's 2-core
 //! machine, 10,000 tables of 50 pressures): per row below Pb the default correlations need 13
@@ -345,7 +346,7 @@ fn fill(
             (rsi, bo, model.co_undersaturated(pi)?, model.viscosity(pi)?)
         } else if fast_above && pi.is_finite() {
             // Above Pb (pi > Pb on a strictly increasing grid): ln p once for Bo and mu.
-            let ln_p = fastmath::ln(pi);
+            let ln_p = fastmath::ln_scalar(pi);
             (
                 rsi,
                 model.bo_above_pb(pi, ln_p),

@@ -187,7 +187,7 @@ impl LiveOilViscosity {
     #[inline]
     pub(crate) fn new(mu_od: f64) -> Self {
         Self {
-            ln_mu_od: fastmath::ln(mu_od),
+            ln_mu_od: fastmath::ln_scalar(mu_od),
         }
     }
 
@@ -195,8 +195,8 @@ impl LiveOilViscosity {
     /// caller).
     #[inline(always)]
     pub(crate) fn at(&self, rs: f64) -> f64 {
-        let b = 5.44 * fastmath::exp(-0.338 * fastmath::ln(rs + 150.0));
-        fastmath::exp(LN_A0 - 0.515 * fastmath::ln(rs + 100.0) + b * self.ln_mu_od)
+        let b = 5.44 * fastmath::exp_scalar(-0.338 * fastmath::ln_scalar(rs + 150.0));
+        fastmath::exp_scalar(LN_A0 - 0.515 * fastmath::ln_scalar(rs + 100.0) + b * self.ln_mu_od)
     }
 }
 
@@ -240,7 +240,7 @@ pub fn undersaturated_oil_viscosity(p: f64, pb: f64, mu_ob: f64) -> Result<f64> 
             "must be >= pb for undersaturated viscosity",
         ));
     }
-    Ok(mu_ob * undersaturated_viscosity_ratio(p, fastmath::ln(p), fastmath::ln(pb)))
+    Ok(mu_ob * undersaturated_viscosity_ratio(p, fastmath::ln_scalar(p), fastmath::ln_scalar(pb)))
 }
 
 /// mu_o / mu_ob of Vasquez–Beggs (1980) at `p` >= `pb` given ln p and ln Pb (the table
@@ -249,8 +249,8 @@ pub fn undersaturated_oil_viscosity(p: f64, pb: f64, mu_ob: f64) -> Result<f64> 
 #[inline(always)]
 pub(crate) fn undersaturated_viscosity_ratio(p: f64, ln_p: f64, ln_pb: f64) -> f64 {
     // m = 2.6 p^1.187 exp(-11.513 - 8.98e-5 p), ratio = (p / Pb)^m.
-    let m = 2.6 * fastmath::exp(1.187 * ln_p - 11.513 - 8.98e-5 * p);
-    fastmath::exp(m * (ln_p - ln_pb))
+    let m = 2.6 * fastmath::exp_scalar(1.187 * ln_p - 11.513 - 8.98e-5 * p);
+    fastmath::exp_scalar(m * (ln_p - ln_pb))
 }
 
 #[cfg(test)]
