@@ -1,11 +1,13 @@
-//! Branch-free natural exponential and logarithm for the hot loops of the property
-//! kernels (black-oil tables of many wells, gas viscosity), a few units in the last place from
-//! the standard library's `f64::exp` / `f64::ln` and several times faster, because they
-//! inline and vectorise where a call into the system maths library cannot.
+//! Branch-free natural exponential and logarithm for loops over lanes that the compiler can
+//! vectorise (batch kernels such as the Dranchuk–Abou-Kassem solve), a few units in the last
+//! place from the standard library's `f64::exp` / `f64::ln`. One value at a time, on the
+//! baseline x86-64 target this crate is built for (no FMA), the system library's run-time
+//! FMA versions are faster: scalar code calls [`exp_scalar`] / [`ln_scalar`] (measured in
+//! `examples/profile_black_oil.rs`, see [`exp_scalar`]).
 //!
 //! Most published PVT correlations are power laws, `a x^b`; written as `exp(b ln x)` with
 //! the per-fluid parts hoisted out of the pressure loop they cost one [`ln`] and one [`exp`]
-//! per point. [`pow_positive`] is that form for a positive base.
+//! per point. [`pow_positive`] and [`pow_positive_scalar`] are that form for a positive base.
 //!
 //! # Accuracy (unit-tested against `f64::exp` / `f64::ln`)
 //! - [`exp`]: within 3 ulp over its whole range, results in the subnormal range included;
