@@ -12,7 +12,9 @@
 //! # Accuracy (unit-tested against `f64::exp` / `f64::ln`)
 //! - [`exp`]: within 3 ulp over its whole range, results in the subnormal range included;
 //!   `exp(NaN) = NaN`, `exp(+inf) = +inf`, `exp(-inf) = 0`, overflow gives `+inf`, underflow
-//!   0. For `x <= 0` it is the exponential that the Dranchuk–Abou-Kassem solver uses.
+//!   0. It has the reduction and polynomial of the Dranchuk–Abou-Kassem solver's private
+//!   exponential, and scaling by powers of two is exact for normal results, so for
+//!   -700 <= x <= 0 it gives the same bits (below -700 that one clamps, this one does not).
 //! - [`ln`]: within 1 ulp for positive normal and subnormal inputs; `ln(0) = -inf`,
 //!   `ln(+inf) = +inf`, `ln(x < 0) = NaN`, `ln(NaN) = NaN`.
 //! - [`pow_positive`]`(x, y) = exp(y ln x)`: relative error about `(|y ln x| + 4) * 1.1e-16`
