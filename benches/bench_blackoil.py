@@ -182,6 +182,8 @@ def main():
         print(f"{r} {tn} {tr} {loop}")
         return
     print(f"{a.wells} tables x {a.points} pressures, {a.rounds} alternating rounds, {os.cpu_count()} cores")
+    # The machine is shared: its load says which state (fast or ~2x slower) the run saw.
+    print("load average at start (1, 5, 15 min): " + ", ".join(f"{x:.1f}" for x in os.getloadavg()))
     worst = agreement(a.wells, a.points)
     print("largest relative difference numpy vs stocktank per column:")
     print("  " + ", ".join(f"{k} {v:.1e}" for k, v in worst.items()))
@@ -195,6 +197,7 @@ def main():
     print(f"one core : numpy called once per well (vectorised over pressures), median ratio {loop1:.1f}x")
     print(f"all cores: numpy {tn:.3f} s, stocktank {tr:.3f} s, median ratio {rall:.1f}x")
     print(f"parallel speed-up of stocktank: {tr1 / tr:.2f}x on {os.cpu_count()} cores")
+    print("load average at end (1, 5, 15 min): " + ", ".join(f"{x:.1f}" for x in os.getloadavg()))
 
 
 if __name__ == "__main__":

@@ -17,6 +17,7 @@
 
 pub mod array;
 pub mod error;
+pub mod fastmath;
 pub mod units;
 
 pub mod decline;

@@ -224,3 +224,105 @@ fn every_method_builds_finite_tables_inside_its_own_ranges() {
         assert!(built > 20, "{m}: {built}");
     }
 }
+
+/// The many-well builder writes every fluid's rows in place: each must be bit for bit the
+/// single-fluid table, with the same violations, Pb row and per-fluid scalars.
+#[test]
+fn long_table_equals_single_tables_bit_for_bit() {
+    let mut rng = Rng(11);
+    let mut oils: Vec<Oil> = (0..300)
+        .map(|_| {
+            Oil::new(
+                rng.uniform(15.0, 50.0),
+                rng.uniform(0.6, 1.1),
+                rng.uniform(50.0, 2000.0),
+                rng.uniform(80.0, 280.0),
+            )
+            .unwrap()
+        })
+        .collect();
+    let p = grid(25, 100.0, 7000.0);
+    // One fluid whose Pb falls exactly on a grid point (snapped, no extra row).
+    oils[5] = Oil::new(35.0, 0.8, 600.0, 200.0)
+        .unwrap()
+        .with_measured_bubble_point(p[7])
+        .unwrap();
+    let long = build_long(&oils, &p, OnError::Coerce).unwrap();
+    assert!(long.errors.is_empty());
+    let mut start = 0;
+    for (k, oil) in oils.iter().enumerate() {
+        let one = BlackOilTable::build(oil, &p).unwrap();
+        let n = one.p.len();
+        assert!(long.well[start..start + n].iter().all(|&w| w == k as u64));
+        assert_eq!(long.pb[k], one.pb);
+        assert_eq!(long.rsi[k], one.rsi);
+        for (j, (name, _)) in COLUMNS.iter().enumerate() {
+            let col = one.column(name).unwrap();
+            for (a, b) in long.columns[j][start..start + n].iter().zip(col) {
+                assert_eq!(a.to_bits(), b.to_bits(), "fluid {k}, column {name}");
+            }
+        }
+        for i in 0..n {
+            assert_eq!(long.is_pb[start + i], i == one.pb_index);
+        }
+        let mine: Vec<_> = long
+            .violations
+            .iter()
+            .filter(|(w, _)| *w == k as u64)
+            .map(|(_, v)| v.clone())
+            .collect();
+        assert_eq!(mine, one.check(), "fluid {k}");
+        start += n;
+    }
+    assert_eq!(start, long.well.len());
+    let rows_of_5 = long.well.iter().filter(|&&w| w == 5).count();
+    assert_eq!(rows_of_5, p.len(), "a grid point snapped to Pb adds no row");
+}
+
+/// A fluid whose description builds but whose table fails (here McCain's Bw, which stops
+/// being a volume far above its range, at a hot well) gets the user's pressures and NaN,
+/// like a fluid that failed earlier; the others are untouched.
+#[test]
+fn long_table_reports_a_table_that_fails_after_its_model() {
+    let oils = [
+        Oil::new(35.0, 0.8, 600.0, 150.0).unwrap(),
+        Oil::new(35.0, 0.8, 600.0, 300.0).unwrap(),
+        Oil::new(30.0, 0.7, 400.0, 150.0).unwrap(),
+    ];
+    let p = [1000.0, 3000.0, 60_000.0];
+    let singles: Vec<_> = oils.iter().map(|o| BlackOilTable::build(o, &p)).collect();
+    let failing: Vec<usize> = (0..3).filter(|&k| singles[k].is_err()).collect();
+    assert!(!failing.is_empty() && failing.len() < 3, "{singles:?}");
+    let long = build_long(&oils, &p, OnError::Coerce).unwrap();
+    let mut start = 0;
+    for (k, single) in singles.iter().enumerate() {
+        match single {
+            Ok(t) => {
+                let n = t.p.len();
+                assert_eq!(&long.columns[2][start..start + n], &t.bo[..]);
+                start += n;
+            }
+            Err(e) => {
+                assert_eq!(&long.columns[0][start..start + p.len()], &p[..]);
+                assert!(
+                    long.columns[2][start..start + p.len()]
+                        .iter()
+                        .all(|x| x.is_nan())
+                );
+                assert!(long.pb[k].is_nan());
+                assert!(
+                    long.errors
+                        .iter()
+                        .any(|(w, m)| *w == k as u64 && *m == e.to_string())
+                );
+                start += p.len();
+            }
+        }
+    }
+    assert_eq!(start, long.well.len());
+    assert_eq!(long.errors.len(), failing.len());
+    let e = build_long(&oils, &p, OnError::Raise)
+        .unwrap_err()
+        .to_string();
+    assert!(e.contains(&format!("row {}", failing[0])), "{e}");
+}

@@ -716,21 +716,36 @@ impl GasIsotherm<'_> {
 
     /// Z at every pressure of `p_psia` (psia): one result per pressure, each exactly that
     /// of [`GasIsotherm::z`] (the DAK points go through the vectorised batch kernel).
+    #[cfg(test)]
     pub(crate) fn z_column(&self, p_psia: &[f64]) -> Vec<Result<f64>> {
+        let mut out = Vec::new();
+        self.z_column_into(p_psia, &mut Vec::new(), &mut out);
+        out
+    }
+
+    /// As [`GasIsotherm::z_column`], into `out` (resized to the length of `p_psia`), with
+    /// `ppr` as scratch: a caller building many tables reuses both buffers.
+    pub(crate) fn z_column_into(
+        &self,
+        p_psia: &[f64],
+        ppr: &mut Vec<f64>,
+        out: &mut Vec<Result<f64>>,
+    ) {
+        out.clear();
         match &self.dak {
             Some(d) => {
                 let ppc = self.gas.pc.ppc_psia;
-                let ppr: Vec<f64> = p_psia.iter().map(|&p| p / ppc).collect();
-                let mut out: Vec<Result<f64>> = p_psia.iter().map(|_| Ok(f64::NAN)).collect();
-                d.z_into(&ppr, &mut out);
+                ppr.clear();
+                ppr.extend(p_psia.iter().map(|&p| p / ppc));
+                out.resize_with(p_psia.len(), || Ok(f64::NAN));
+                d.z_into(ppr, out);
                 for (o, &p) in out.iter_mut().zip(p_psia) {
                     if let Err(e) = positive("p_psia", p) {
                         *o = Err(e);
                     }
                 }
-                out
             }
-            None => p_psia.iter().map(|&p| self.z(p)).collect(),
+            None => out.extend(p_psia.iter().map(|&p| self.z(p))),
         }
     }
 }

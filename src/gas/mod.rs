@@ -56,6 +56,7 @@ pub use condensate::{
     sg_to_api,
 };
 pub use description::{Gas, GasProperty, ImpurityCorrection, PseudoCriticalSource};
+pub(crate) use properties::GasIsothermVolumetrics;
 pub use properties::{bg, cg_from_cpr, gas_density, molar_mass, rcf_per_scf_to_rb_per_mscf};
 pub use pseudo_critical::{
     COMPONENTS, COMPOSITION_NAMES, Component, GravityCorrelation, KayResult, PseudoCritical,

@@ -65,9 +65,57 @@ pub fn molar_mass(gas_sg: f64) -> Result<f64> {
 #[inline]
 pub fn bg(p_psia: f64, t_f: f64, z: f64, sc: &StandardConditions) -> Result<f64> {
     let p = positive("p_psia", p_psia)?;
-    let t = temperature_f("t_f", t_f)? + RANKINE_OFFSET;
+    temperature_f("t_f", t_f)?;
     let z = positive("z", z)?;
-    Ok(sc.p_psia / sc.t_r() * z * t / p)
+    Ok(GasIsothermVolumetrics::bg_factor(t_f, sc) * z / p)
+}
+
+/// Bg and density of one gas along one isotherm, with the temperature terms computed once:
+/// the one implementation of the real-gas law behind [`bg`] and [`gas_density`], for a
+/// pressure sweep (a black-oil table) that then pays one division per point for each.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct GasIsothermVolumetrics {
+    bg_k: f64,
+    rho_k: f64,
+}
+
+impl GasIsothermVolumetrics {
+    /// Gas of specific gravity `gas_sg` (air = 1) at `t_f` (degF), standard conditions `sc`.
+    ///
+    /// # Errors
+    /// [`crate::Error::InvalidArgument`] naming `t_f` or `gas_sg`.
+    #[inline]
+    pub(crate) fn new(t_f: f64, gas_sg: f64, sc: &StandardConditions) -> Result<Self> {
+        temperature_f("t_f", t_f)?;
+        Ok(Self {
+            bg_k: Self::bg_factor(t_f, sc),
+            rho_k: Self::density_factor(t_f, molar_mass(gas_sg)?),
+        })
+    }
+
+    /// (p_sc / T_sc) T, psia (temperatures in degR).
+    #[inline(always)]
+    fn bg_factor(t_f: f64, sc: &StandardConditions) -> f64 {
+        sc.p_psia / sc.t_r() * (t_f + RANKINE_OFFSET)
+    }
+
+    /// M / (R T), lbm/ft3 per psia.
+    #[inline(always)]
+    fn density_factor(t_f: f64, molar_mass: f64) -> f64 {
+        molar_mass / (R_FIELD * (t_f + RANKINE_OFFSET))
+    }
+
+    /// Bg at `p_psia` (> 0) with Z-factor `z`, rcf/scf.
+    #[inline(always)]
+    pub(crate) fn bg(&self, p_psia: f64, z: f64) -> f64 {
+        self.bg_k * z / p_psia
+    }
+
+    /// Density at `p_psia` with Z-factor `z` (> 0), lbm/ft3.
+    #[inline(always)]
+    pub(crate) fn density(&self, p_psia: f64, z: f64) -> f64 {
+        self.rho_k * p_psia / z
+    }
 }
 
 /// Convert Bg from rcf/scf to rb/Mscf (multiply by 1000 / 5.614583).
@@ -119,10 +167,10 @@ pub fn rcf_per_scf_to_rb_per_mscf(bg_rcf_per_scf: f64) -> f64 {
 #[inline]
 pub fn gas_density(p_psia: f64, t_f: f64, z: f64, gas_sg: f64) -> Result<f64> {
     let p = positive("p_psia", p_psia)?;
-    let t = temperature_f("t_f", t_f)? + RANKINE_OFFSET;
+    temperature_f("t_f", t_f)?;
     let z = positive("z", z)?;
     let m = molar_mass(gas_sg)?;
-    Ok(p * m / (z * R_FIELD * t))
+    Ok(GasIsothermVolumetrics::density_factor(t_f, m) * p / z)
 }
 
 /// Gas isothermal compressibility from the pseudo-reduced compressibility.

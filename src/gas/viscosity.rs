@@ -2,6 +2,7 @@
 //! in the Standing (1977) / Dempsey (1965) curve fits.
 
 use crate::error::{Error, Result, fraction, positive, temperature_f};
+use crate::fastmath;
 use crate::units::{KG_PER_LBM, M3_PER_FT3, RANKINE_OFFSET};
 
 /// Gas viscosity method.
@@ -154,8 +155,9 @@ impl LeeGonzalezEakin {
 
     #[inline(always)]
     fn at_checked_density(&self, density_lbm_ft3: f64) -> f64 {
+        // rho^Y as exp(Y ln rho): both inline and vectorise (crate::fastmath).
         let rho = density_lbm_ft3 / LBM_FT3_PER_G_CC;
-        1e-4 * self.k * (self.x * rho.powf(self.y)).exp()
+        1e-4 * self.k * fastmath::exp_scalar(self.x * fastmath::pow_positive_scalar(rho, self.y))
     }
 }
 

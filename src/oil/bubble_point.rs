@@ -11,6 +11,7 @@
 
 use super::{PbMethod, ValidRange};
 use crate::error::{Error, Result, non_negative, positive, temperature_f};
+use crate::fastmath;
 use crate::units::f_to_r;
 
 // Vasquez–Beggs (1980) Rs coefficients: (C1, C2, C3) for API <= 30 and API > 30.
@@ -254,10 +255,7 @@ pub fn solution_gor(method: PbMethod, p: f64, gas_sg: f64, api: f64, t_f: f64) -
     positive("p", p)?;
     check_common(gas_sg, api, t_f)?;
     Ok(match method {
-        PbMethod::Standing => {
-            let a = 0.0125 * api - 0.00091 * t_f;
-            gas_sg * ((p / 18.2 + 1.4) * 10f64.powf(a)).powf(1.0 / 0.83)
-        }
+        PbMethod::Standing => StandingRs::new(gas_sg, api, t_f).at(p),
         PbMethod::VasquezBeggs => {
             let (c1, c2, c3) = vb_coefficients(api);
             c1 * gas_sg * p.powf(c2) * (c3 * api / f_to_r(t_f)).exp()
@@ -285,6 +283,37 @@ pub fn solution_gor(method: PbMethod, p: f64, gas_sg: f64, api: f64, t_f: f64) -
             (p / k).powf(1.0 / AM_B)
         }
     })
+}
+
+/// Standing's (1947) saturated solution GOR of one oil with the per-oil factor hoisted out of
+/// the pressure loop: the one implementation of Standing's Rs(p) behind [`solution_gor`].
+///
+/// Rs = gas_sg [(p/18.2 + 1.4) 10^a]^(1/0.83) = gas_sg exp((ln(p/18.2 + 1.4) + a ln 10) / 0.83),
+/// a = 0.0125 API - 0.00091 T: one logarithm and one exponential per pressure.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct StandingRs {
+    gas_sg: f64,
+    a_ln10: f64,
+}
+
+impl StandingRs {
+    /// The oil (gas_sg air = 1, api degAPI, t_f degF; validated by the caller).
+    #[inline]
+    pub(crate) fn new(gas_sg: f64, api: f64, t_f: f64) -> Self {
+        Self {
+            gas_sg,
+            a_ln10: (0.0125 * api - 0.00091 * t_f) * std::f64::consts::LN_10,
+        }
+    }
+
+    /// Rs at `p` (psia, > 0, checked by the caller), scf/STB.
+    #[inline(always)]
+    pub(crate) fn at(&self, p: f64) -> f64 {
+        self.gas_sg
+            * fastmath::exp_scalar(
+                (fastmath::ln_scalar(p / 18.2 + 1.4) + self.a_ln10) * (1.0 / 0.83),
+            )
+    }
 }
 
 /// Pressure derivative of the saturated solution GOR, dRs/dp, in closed form (the derivative

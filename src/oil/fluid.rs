@@ -19,17 +19,23 @@
 //! raw correlation was from each measurement. When only a bubble point is given (no GOR), the
 //! GOR is the correlation's Rs at that bubble point and no pressure scale is needed.
 
+use super::bubble_point::StandingRs;
 use super::bubble_point::{
     bubble_point, solution_gor, solution_gor_dp, solution_gor_dp_given,
     vasquez_beggs_gas_sg_100psig,
 };
 use super::fvf::{
-    apparent_compressibility, bo_saturated, bo_saturated_drs, bo_saturated_drs_given,
-    bo_undersaturated, co_undersaturated,
+    StandingBo, apparent_compressibility, bo_ratio_with_coefficient, bo_saturated,
+    bo_saturated_drs, bo_saturated_drs_given, bo_undersaturated, co_coefficient, co_undersaturated,
+    co_with_coefficient,
 };
-use super::viscosity::{dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity};
-use super::{BoMethod, CoMethod, DeadOilViscosityMethod, PbMethod};
+use super::viscosity::{
+    LiveOilViscosity, dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity,
+    undersaturated_viscosity_ratio,
+};
+use super::{BoMethod, CoMethod, DeadOilViscosityMethod, PbMethod, sg_from_api};
 use crate::error::{Error, Result, non_negative, positive, temperature_f};
+use crate::fastmath;
 use crate::gas::Gas;
 use crate::units::{FT3_PER_BBL, StandardConditions};
 
@@ -147,9 +153,50 @@ pub struct OilModel {
     /// Calibration results.
     pub report: CalibrationReport,
     mu_od: f64,
+    /// Per-oil parts of the correlations, computed once (see [`Hoisted`]).
+    hoisted: Hoisted,
+}
+
+/// The parts of the chosen correlations that depend on the oil only, computed once per oil
+/// so that a pressure sweep pays only the pressure-dependent work (the correlations
+/// themselves stay in `bubble_point`, `fvf` and `viscosity`; these are their prepared forms).
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct Hoisted {
+    /// Standing's Rs(p) when it is the bubble-point method.
+    rs_standing: Option<StandingRs>,
+    /// Standing's Bo(Rs) when it is the Bo method.
+    bo_standing: Option<StandingBo>,
+    /// Beggs–Robinson live-oil viscosity of this dead oil.
+    live: LiveOilViscosity,
+    /// Undersaturated co coefficient, NaN when the correlation rejects the oil (the checked
+    /// functions then report the error).
+    co_a: f64,
+    /// ln Pb.
+    ln_pb: f64,
 }
 
 impl Oil {
+    /// The gas and water a black-oil table uses when none are given: the liberated gas as
+    /// a sweet gas of the oil's `gas_sg` ([`Gas::new`]) and a brine of the oil's salinity at
+    /// the oil's standard conditions.
+    ///
+    /// # Errors
+    /// The errors of [`Gas::new`] and [`crate::water::Water::new`].
+    ///
+    /// # Examples
+    /// ```
+    /// use stocktank::oil::Oil;
+    /// let (gas, water) = Oil::new(35.0, 0.8, 600.0, 200.0).unwrap().gas_and_water().unwrap();
+    /// assert_eq!(gas, stocktank::gas::Gas::new(0.8).unwrap());
+    /// assert_eq!(water.salinity_wt_pct(), 0.0);
+    /// ```
+    pub fn gas_and_water(&self) -> Result<(Gas, crate::water::Water)> {
+        let gas = Gas::new(self.gas_sg)?;
+        let water = crate::water::Water::new(self.salinity_wt_pct)?
+            .with_standard_conditions(self.standard_conditions)?;
+        Ok((gas, water))
+    }
+
     /// An oil with known solution GOR; default correlations ([`Methods::default`]), no
     /// separator correction, no calibration, fresh water, field standard conditions.
     ///
@@ -384,8 +431,25 @@ impl Oil {
             Some(mu) => (mu, mu / mu_ob_corr),
             None => (mu_ob_corr, 1.0),
         };
+        let g_co = if m.co == CoMethod::VasquezBeggs {
+            gas_sg_vb
+        } else {
+            self.gas_sg
+        };
+        let hoisted = Hoisted {
+            rs_standing: (m.pb == PbMethod::Standing).then(|| StandingRs::new(g_pb, api, t)),
+            bo_standing: (m.bo == BoMethod::Standing)
+                .then(|| StandingBo::new(g_bo, sg_from_api(api).unwrap_or(f64::NAN), t)),
+            live: LiveOilViscosity::new(mu_od),
+            co_a: match co_coefficient(m.co, rsi, g_co, api, t) {
+                Ok(a) if bob > 0.0 && pb > 0.0 => a,
+                _ => f64::NAN,
+            },
+            ln_pb: fastmath::ln_scalar(pb),
+        };
         Ok(OilModel {
             oil: *self,
+            hoisted,
             gas_sg_vb,
             rsi,
             pb,
@@ -465,15 +529,7 @@ impl OilModel {
         if p >= self.pb {
             return Ok(self.rsi);
         }
-        let o = &self.oil;
-        let rs = solution_gor(
-            o.methods.pb,
-            p / self.report.pb_scale,
-            self.g_for_pb(),
-            o.api,
-            o.temperature_f,
-        )?;
-        Ok(rs.min(self.rsi))
+        Ok(self.rs_saturated(p)?.min(self.rsi))
     }
 
     /// Solution GOR of the oil if it were saturated at `p` (the calibrated correlation without
@@ -489,6 +545,12 @@ impl OilModel {
     /// ```
     #[inline]
     pub fn rs_saturated(&self, p: f64) -> Result<f64> {
+        let q = p / self.report.pb_scale;
+        if let Some(k) = &self.hoisted.rs_standing {
+            if q > 0.0 && q.is_finite() {
+                return Ok(k.at(q));
+            }
+        }
         let o = &self.oil;
         solution_gor(
             o.methods.pb,
@@ -558,6 +620,9 @@ impl OilModel {
         let (kp, kb) = (self.report.pb_scale, self.report.bo_scale);
         let drs = solution_gor_dp_given(o.methods.pb, p / kp, rs, o.api) / kp;
         let bo_corr = 1.0 + (bo - 1.0) / kb;
+        if let Some(k) = &self.hoisted.bo_standing {
+            return Ok((drs, kb * k.drs_given(rs, bo_corr) * drs));
+        }
         let dbo_drs = kb
             * bo_saturated_drs_given(
                 o.methods.bo,
@@ -585,6 +650,9 @@ impl OilModel {
         if rs == self.rsi {
             return Ok(self.report.mu_ob_cp);
         }
+        if rs >= 0.0 && rs.is_finite() {
+            return Ok(self.report.mu_scale * self.hoisted.live.at(rs));
+        }
         Ok(self.report.mu_scale * live_oil_viscosity(self.mu_od, rs)?)
     }
 
@@ -601,7 +669,10 @@ impl OilModel {
     #[inline]
     pub fn bo_saturated(&self, rs: f64) -> Result<f64> {
         let o = &self.oil;
-        let b = bo_saturated(o.methods.bo, rs, self.g_for_bo(), o.api, o.temperature_f)?;
+        let b = match &self.hoisted.bo_standing {
+            Some(k) if rs >= 0.0 && k.group(rs) >= 0.0 => k.at_group(k.group(rs)),
+            _ => bo_saturated(o.methods.bo, rs, self.g_for_bo(), o.api, o.temperature_f)?,
+        };
         if rs == self.rsi {
             return Ok(self.report.bob);
         }
@@ -620,6 +691,9 @@ impl OilModel {
     /// ```
     #[inline]
     pub fn bo(&self, p: f64) -> Result<f64> {
+        if p > self.pb && p.is_finite() && self.has_co_coefficient() {
+            return Ok(self.bo_above_pb(p, fastmath::ln_scalar(p)));
+        }
         if p > self.pb {
             let o = &self.oil;
             bo_undersaturated(
@@ -649,6 +723,13 @@ impl OilModel {
     /// ```
     #[inline]
     pub fn co_undersaturated(&self, p: f64) -> Result<f64> {
+        if p > 0.0 && self.has_co_coefficient() {
+            return Ok(co_with_coefficient(
+                self.oil.methods.co,
+                self.hoisted.co_a,
+                p,
+            ));
+        }
         let o = &self.oil;
         co_undersaturated(
             o.methods.co,
@@ -721,11 +802,36 @@ impl OilModel {
     /// ```
     #[inline]
     pub fn viscosity(&self, p: f64) -> Result<f64> {
+        if p > self.pb && p.is_finite() {
+            return Ok(self.viscosity_above_pb(p, fastmath::ln_scalar(p)));
+        }
         if p > self.pb {
             undersaturated_oil_viscosity(p, self.pb, self.report.mu_ob_cp)
         } else {
             self.viscosity_saturated(self.rs(p)?)
         }
+    }
+
+    /// Bo above Pb at `p` > Pb given `ln_p` = ln p (the table builder computes it once per
+    /// pressure); needs a valid co coefficient (checked by the callers).
+    #[inline(always)]
+    pub(crate) fn bo_above_pb(&self, p: f64, ln_p: f64) -> f64 {
+        debug_assert!(p > self.pb);
+        let h = &self.hoisted;
+        self.report.bob * bo_ratio_with_coefficient(self.oil.methods.co, h.co_a, ln_p, h.ln_pb)
+    }
+
+    /// Whether [`OilModel::bo_above_pb`] can be used (the co correlation accepted the oil,
+    /// and Pb and Bob are positive).
+    #[inline]
+    pub(crate) fn has_co_coefficient(&self) -> bool {
+        !self.hoisted.co_a.is_nan()
+    }
+
+    /// Viscosity above Pb at finite `p` > Pb given `ln_p` = ln p, cp.
+    #[inline(always)]
+    pub(crate) fn viscosity_above_pb(&self, p: f64, ln_p: f64) -> f64 {
+        self.report.mu_ob_cp * undersaturated_viscosity_ratio(p, ln_p, self.hoisted.ln_pb)
     }
 
     /// Dead-oil viscosity at reservoir temperature, cp (uncalibrated).

@@ -4,6 +4,7 @@
 use super::bubble_point::bubble_point_ranges;
 use super::{BoMethod, CoMethod, PbMethod, sg_from_api};
 use crate::error::{Error, Result, non_negative, positive, temperature_f};
+use crate::fastmath;
 use crate::units::{
     AIR_MOLAR_MASS, FT3_PER_BBL, R_FIELD, StandardConditions, WATER_DENSITY_60F, f_to_r,
 };
@@ -70,7 +71,8 @@ pub fn bo_saturated(method: BoMethod, rs: f64, gas_sg: f64, api: f64, t_f: f64) 
     temperature_f("temperature_f", t_f)?;
     Ok(match method {
         BoMethod::Standing => {
-            let f = rs * (gas_sg / oil_sg).sqrt() + 1.25 * t_f;
+            let k = StandingBo::new(gas_sg, oil_sg, t_f);
+            let f = k.group(rs);
             if f < 0.0 {
                 return Err(Error::invalid(
                     "temperature_f",
@@ -78,7 +80,7 @@ pub fn bo_saturated(method: BoMethod, rs: f64, gas_sg: f64, api: f64, t_f: f64) 
                     "too low for Standing's Bo (negative correlating group)",
                 ));
             }
-            0.9759 + 0.00012 * f.powf(1.2)
+            k.at_group(f)
         }
         BoMethod::VasquezBeggs => {
             let (c1, c2, c3) = if api <= 30.0 {
@@ -180,16 +182,7 @@ pub(crate) fn bo_saturated_drs_given(
         ))
     };
     Ok(match method {
-        BoMethod::Standing => {
-            // Bo - 0.9759 = 0.00012 F^1.2, so dBo/dRs = 1.2 (Bo - 0.9759) r / F.
-            let r = (gas_sg / oil_sg).sqrt();
-            let f = rs * r + 1.25 * t_f;
-            if f > 0.0 {
-                1.2 * (bo - 0.9759) * r / f
-            } else {
-                0.00012 * 1.2 * f.max(0.0).powf(0.2) * r
-            }
-        }
+        BoMethod::Standing => StandingBo::new(gas_sg, oil_sg, t_f).drs_given(rs, bo),
         BoMethod::VasquezBeggs => {
             let (c1, c3) = if api <= 30.0 {
                 (4.677e-4, -1.811e-8)
@@ -220,6 +213,53 @@ pub(crate) fn bo_saturated_drs_given(
             (0.182594e-2 + 2.0 * 0.318099e-5 * f) * 0.74239 * f / rs
         }
     })
+}
+
+/// Standing's (1947) saturated Bo of one oil with the per-oil parts hoisted out of the
+/// pressure loop: the one implementation of Standing's Bo behind [`bo_saturated`] and
+/// [`bo_saturated_drs`].
+///
+/// Bo = 0.9759 + 0.00012 F^1.2, F = Rs r + 1.25 T, r = sqrt(gas_sg / oil_sg); F^1.2 as
+/// exp(1.2 ln F).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct StandingBo {
+    r: f64,
+    c: f64,
+}
+
+impl StandingBo {
+    /// The oil (gas_sg air = 1, oil_sg water = 1, t_f degF; validated by the caller).
+    #[inline]
+    pub(crate) fn new(gas_sg: f64, oil_sg: f64, t_f: f64) -> Self {
+        Self {
+            r: (gas_sg / oil_sg).sqrt(),
+            c: 1.25 * t_f,
+        }
+    }
+
+    /// The correlating group F at `rs` (scf/STB).
+    #[inline(always)]
+    pub(crate) fn group(&self, rs: f64) -> f64 {
+        rs * self.r + self.c
+    }
+
+    /// Bo (rb/STB) at a correlating group `f` >= 0.
+    #[inline(always)]
+    pub(crate) fn at_group(&self, f: f64) -> f64 {
+        0.9759 + 0.00012 * fastmath::pow_positive_scalar(f, 1.2)
+    }
+
+    /// dBo/dRs at `rs` given `bo` = Bo(rs): Bo - 0.9759 = 0.00012 F^1.2, so
+    /// dBo/dRs = 1.2 (Bo - 0.9759) r / F (no power function for F > 0).
+    #[inline(always)]
+    pub(crate) fn drs_given(&self, rs: f64, bo: f64) -> f64 {
+        let f = self.group(rs);
+        if f > 0.0 {
+            1.2 * (bo - 0.9759) * self.r / f
+        } else {
+            0.00012 * 1.2 * f.max(0.0).powf(0.2) * self.r
+        }
+    }
 }
 
 fn pb_method_of(method: BoMethod) -> PbMethod {
@@ -323,15 +363,47 @@ pub fn co_undersaturated(
 ) -> Result<f64> {
     positive("p", p)?;
     let a = co_coefficient(method, rsb, gas_sg, api, t_f)?;
-    Ok(match method {
+    Ok(co_with_coefficient(method, a, p))
+}
+
+/// co at `p` (psia) from the per-oil coefficient of [`co_coefficient`]: the one
+/// implementation of the pressure dependence behind [`co_undersaturated`].
+#[inline(always)]
+pub(crate) fn co_with_coefficient(method: CoMethod, a: f64, p: f64) -> f64 {
+    match method {
         CoMethod::VasquezBeggs => a / p,
-        CoMethod::PetroskyFarshad => a * p.powf(-0.5906),
-    })
+        CoMethod::PetroskyFarshad => a * fastmath::pow_positive_scalar(p, -0.5906),
+    }
+}
+
+/// Bo/Bob above the bubble point from the per-oil coefficient of [`co_coefficient`], given
+/// ln p and ln Pb (the table builder has both at hand): the one implementation behind
+/// [`bo_undersaturated`].
+#[inline(always)]
+pub(crate) fn bo_ratio_with_coefficient(method: CoMethod, a: f64, ln_p: f64, ln_pb: f64) -> f64 {
+    match method {
+        // Bo = Bob (p / Pb)^-a
+        CoMethod::VasquezBeggs => fastmath::exp_scalar(-a * (ln_p - ln_pb)),
+        // Bo = Bob exp(-a (p^0.4094 - Pb^0.4094) / 0.4094)
+        CoMethod::PetroskyFarshad => {
+            let (x, xb) = (
+                fastmath::exp_scalar(0.4094 * ln_p),
+                fastmath::exp_scalar(0.4094 * ln_pb),
+            );
+            fastmath::exp_scalar(-a * (x - xb) / 0.4094)
+        }
+    }
 }
 
 /// The pressure-independent factor A of co: VB co = A/p, PF co = A p^-0.5906.
 #[inline]
-fn co_coefficient(method: CoMethod, rsb: f64, gas_sg: f64, api: f64, t_f: f64) -> Result<f64> {
+pub(crate) fn co_coefficient(
+    method: CoMethod,
+    rsb: f64,
+    gas_sg: f64,
+    api: f64,
+    t_f: f64,
+) -> Result<f64> {
     non_negative("rsb", rsb)?;
     positive("gas_sg", gas_sg)?;
     positive("api", api)?;
@@ -408,10 +480,8 @@ pub fn bo_undersaturated(
         ));
     }
     let a = co_coefficient(method, rsb, gas_sg, api, t_f)?;
-    Ok(match method {
-        CoMethod::VasquezBeggs => bob * (-a * (p / pb).ln()).exp(),
-        CoMethod::PetroskyFarshad => bob * (-a * (p.powf(0.4094) - pb.powf(0.4094)) / 0.4094).exp(),
-    })
+    let (ln_p, ln_pb) = (fastmath::ln_scalar(p), fastmath::ln_scalar(pb));
+    Ok(bob * bo_ratio_with_coefficient(method, a, ln_p, ln_pb))
 }
 
 /// Apparent (two-phase) compressibility of an oil below its bubble point: the shrinkage of
@@ -547,8 +617,36 @@ pub fn oil_density(
     positive("bo", bo)?;
     positive("gas_sg", gas_sg)?;
     let oil_sg = sg_from_api(positive("api", api)?)?;
-    let rho_air_sc = AIR_MOLAR_MASS * sc.p_psia / (R_FIELD * sc.t_r());
-    Ok((WATER_DENSITY_60F * oil_sg + rs * gas_sg * rho_air_sc / FT3_PER_BBL) / bo)
+    Ok(OilDensity::new(oil_sg, gas_sg, sc).at(rs, bo))
+}
+
+/// The mass balance of [`oil_density`] for one oil, with the stock-tank oil mass and the
+/// mass of one scf of its gas computed once: the one implementation behind
+/// [`oil_density`], for a pressure sweep.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct OilDensity {
+    /// Stock-tank oil mass, lbm per ft3 of stock-tank oil.
+    oil: f64,
+    /// Dissolved-gas mass per (scf/STB) of Rs, lbm per ft3 of stock-tank oil.
+    gas: f64,
+}
+
+impl OilDensity {
+    /// The oil of specific gravity `oil_sg` (water = 1) with gas of `gas_sg` (air = 1).
+    #[inline]
+    pub(crate) fn new(oil_sg: f64, gas_sg: f64, sc: &StandardConditions) -> Self {
+        let rho_air_sc = AIR_MOLAR_MASS * sc.p_psia / (R_FIELD * sc.t_r());
+        Self {
+            oil: WATER_DENSITY_60F * oil_sg,
+            gas: gas_sg * rho_air_sc / FT3_PER_BBL,
+        }
+    }
+
+    /// Density (lbm/ft3) at solution GOR `rs` (scf/STB) and FVF `bo` (rb/STB).
+    #[inline(always)]
+    pub(crate) fn at(&self, rs: f64, bo: f64) -> f64 {
+        (self.oil + rs * self.gas) / bo
+    }
 }
 
 #[cfg(test)]

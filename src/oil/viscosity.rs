@@ -3,6 +3,7 @@
 
 use super::{DeadOilViscosityMethod, ValidRange};
 use crate::error::{Error, Result, non_negative, positive};
+use crate::fastmath;
 
 /// Viscosity of the gas-free (dead) stock-tank oil at temperature `t_f`.
 ///
@@ -169,9 +170,36 @@ pub fn dead_oil_viscosity_in_range(method: DeadOilViscosityMethod, api: f64, t_f
 pub fn live_oil_viscosity(mu_od: f64, rs: f64) -> Result<f64> {
     positive("mu_od", mu_od)?;
     non_negative("rs", rs)?;
-    let a = 10.715 * (rs + 100.0).powf(-0.515);
-    let b = 5.44 * (rs + 150.0).powf(-0.338);
-    Ok(a * mu_od.powf(b))
+    Ok(LiveOilViscosity::new(mu_od).at(rs))
+}
+
+/// ln 10.715, the Beggs–Robinson (1975) live-oil coefficient (unit-tested).
+const LN_A0: f64 = 2.371_644_628_925_540_4;
+
+/// Beggs–Robinson (1975) live-oil viscosity of one dead oil, with ln(mu_od) computed once
+/// so that a pressure sweep pays two logarithms and two exponentials per point: the one
+/// implementation behind [`live_oil_viscosity`].
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct LiveOilViscosity {
+    ln_mu_od: f64,
+}
+
+impl LiveOilViscosity {
+    /// The dead oil of viscosity `mu_od` (cp, > 0, checked by the caller).
+    #[inline]
+    pub(crate) fn new(mu_od: f64) -> Self {
+        Self {
+            ln_mu_od: fastmath::ln_scalar(mu_od),
+        }
+    }
+
+    /// mu_o = A mu_od^B = exp(ln A + B ln mu_od), cp, at `rs` (scf/STB, >= 0, checked by the
+    /// caller).
+    #[inline(always)]
+    pub(crate) fn at(&self, rs: f64) -> f64 {
+        let b = 5.44 * fastmath::exp_scalar(-0.338 * fastmath::ln_scalar(rs + 150.0));
+        fastmath::exp_scalar(LN_A0 - 0.515 * fastmath::ln_scalar(rs + 100.0) + b * self.ln_mu_od)
+    }
 }
 
 /// Viscosity of an undersaturated oil above its bubble point (Vasquez–Beggs 1980).
@@ -214,6 +242,40 @@ pub fn undersaturated_oil_viscosity(p: f64, pb: f64, mu_ob: f64) -> Result<f64> 
             "must be >= pb for undersaturated viscosity",
         ));
     }
-    let m = 2.6 * p.powf(1.187) * (-11.513 - 8.98e-5 * p).exp();
-    Ok(mu_ob * (p / pb).powf(m))
+    Ok(mu_ob * undersaturated_viscosity_ratio(p, fastmath::ln_scalar(p), fastmath::ln_scalar(pb)))
+}
+
+/// mu_o / mu_ob of Vasquez–Beggs (1980) at `p` >= `pb` given ln p and ln Pb (the table
+/// builder has both at hand): the one implementation behind
+/// [`undersaturated_oil_viscosity`].
+#[inline(always)]
+pub(crate) fn undersaturated_viscosity_ratio(p: f64, ln_p: f64, ln_pb: f64) -> f64 {
+    // m = 2.6 p^1.187 exp(-11.513 - 8.98e-5 p), ratio = (p / Pb)^m.
+    let m = 2.6 * fastmath::exp_scalar(1.187 * ln_p - 11.513 - 8.98e-5 * p);
+    fastmath::exp_scalar(m * (ln_p - ln_pb))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn hoisted_forms_match_the_published_power_laws() {
+        assert_eq!(LN_A0, 10.715f64.ln());
+        for mu_od in [0.5, 2.0, 40.0] {
+            for rs in [0.0, 150.0, 600.0, 2000.0] {
+                let a = 10.715 * (rs + 100.0f64).powf(-0.515);
+                let b = 5.44 * (rs + 150.0f64).powf(-0.338);
+                let want = a * f64::powf(mu_od, b);
+                let got = live_oil_viscosity(mu_od, rs).unwrap();
+                assert!((got / want - 1.0).abs() < 1e-14, "{got} vs {want}");
+            }
+        }
+        for (p, pb) in [(3000.0f64, 2500.0f64), (9000.0, 1000.0)] {
+            let m = 2.6 * p.powf(1.187) * (-11.513 - 8.98e-5 * p).exp();
+            let want = 0.7 * (p / pb).powf(m);
+            let got = undersaturated_oil_viscosity(p, pb, 0.7).unwrap();
+            assert!((got / want - 1.0).abs() < 1e-14, "{got} vs {want}");
+        }
+    }
 }

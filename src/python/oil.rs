@@ -516,17 +516,13 @@ fn per_item<T>(
     Ok(out)
 }
 
-/// The table of one oil with optional gas and water descriptions (defaults as
-/// `BlackOilTable::build`: a gas of the oil's gas gravity, a brine of its salinity).
-fn build_one(
+/// The gas and water of one oil's table: the given descriptions, or the defaults of
+/// `Oil::gas_and_water` (a gas of the oil's gas gravity, a brine of its salinity).
+fn gas_and_water(
     oil: &CoreOil,
     gas: Option<&CoreGas>,
     water: Option<&CoreWater>,
-    p: &[f64],
-) -> crate::Result<BlackOilTable> {
-    if gas.is_none() && water.is_none() {
-        return BlackOilTable::build(oil, p);
-    }
+) -> crate::Result<(CoreGas, CoreWater)> {
     let g = match gas {
         Some(g) => *g,
         None => CoreGas::new(oil.gas_sg)?,
@@ -550,9 +546,22 @@ fn build_one(
             }
             w.clone()
         }
-        None => CoreWater::new(oil.salinity_wt_pct)?
-            .with_standard_conditions(oil.standard_conditions)?,
+        None => oil.gas_and_water()?.1,
     };
+    Ok((g, w))
+}
+
+/// The table of one oil with optional gas and water descriptions.
+fn build_one(
+    oil: &CoreOil,
+    gas: Option<&CoreGas>,
+    water: Option<&CoreWater>,
+    p: &[f64],
+) -> crate::Result<BlackOilTable> {
+    if gas.is_none() && water.is_none() {
+        return BlackOilTable::build(oil, p);
+    }
+    let (g, w) = gas_and_water(oil, gas, water)?;
     BlackOilTable::build_with(&oil.model()?, &g, &w, p)
 }
 
@@ -1002,7 +1011,7 @@ fn black_oil_tables<'py>(
         build_long_results_with(oils, &p, oe, |k, o| {
             let g = gases.as_ref().map(|g| &g[nth(g.len(), k)]);
             let w = waters.as_ref().map(|w| &w[nth(w.len(), k)]);
-            build_one(o, g, w, &p)
+            gas_and_water(o, g, w)
         })
     })?;
     let d = PyDict::new(py);
