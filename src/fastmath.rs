@@ -12,9 +12,9 @@
 //! # Accuracy (unit-tested against `f64::exp` / `f64::ln`)
 //! - [`exp`]: within 3 ulp over its whole range, results in the subnormal range included;
 //!   `exp(NaN) = NaN`, `exp(+inf) = +inf`, `exp(-inf) = 0`, overflow gives `+inf`, underflow
-//!   0. It has the reduction and polynomial of the Dranchuk–Abou-Kassem solver's private
-//!   exponential, and scaling by powers of two is exact for normal results, so for
-//!   -700 <= x <= 0 it gives the same bits (below -700 that one clamps, this one does not).
+//!   0. The Dranchuk–Abou-Kassem batch solver uses the same reduction and polynomial with a
+//!   single scaling (`exp_nonpositive`, crate-internal), which gives the same bits for
+//!   -700 <= x <= 0 (scaling by powers of two is exact for normal results; unit-tested).
 //! - [`ln`]: within 1 ulp for positive normal and subnormal inputs; `ln(0) = -inf`,
 //!   `ln(+inf) = +inf`, `ln(x < 0) = NaN`, `ln(NaN) = NaN`.
 //! - [`pow_positive`]`(x, y) = exp(y ln x)`: relative error about `(|y ln x| + 4) * 1.1e-16`
@@ -67,7 +67,34 @@ const MAGIC: f64 = 6_755_399_441_055_744.0;
 pub fn exp(x: f64) -> f64 {
     // Outside [-746, 710] the result is 0 or inf anyway; the clamp keeps n in the range where
     // the two scalings are normal numbers (NaN passes through the clamp).
-    let x = x.clamp(-746.0, 710.0);
+    let (p, n) = exp_reduced(x.clamp(-746.0, 710.0));
+    // n in [-1077, 1025]: split it in halves so that each 2^k is a normal number.
+    let t1 = n * 0.5 + MAGIC;
+    let n1 = t1 - MAGIC;
+    let t2 = (n - n1) + MAGIC;
+    let k1 = t1.to_bits().wrapping_sub(MAGIC.to_bits());
+    let k2 = t2.to_bits().wrapping_sub(MAGIC.to_bits());
+    let s1 = f64::from_bits(k1.wrapping_add(1023) << 52);
+    let s2 = f64::from_bits(k2.wrapping_add(1023) << 52);
+    p * s1 * s2
+}
+
+/// e^x for x <= 0 with inputs below -700 taken as -700 (so the result is a normal number
+/// and one scaling by 2^n suffices): the exponential of the Dranchuk–Abou-Kassem batch
+/// solver, whose argument -0.721 rho_r^2 is never positive. Same bits as [`exp`] on
+/// [-700, 0] (scaling by a power of two is exact for normal results; unit-tested).
+#[inline(always)]
+pub(crate) fn exp_nonpositive(x: f64) -> f64 {
+    let (p, n) = exp_reduced(x.max(-700.0));
+    let k = (n + MAGIC).to_bits().wrapping_sub(MAGIC.to_bits());
+    p * f64::from_bits(k.wrapping_add(1023) << 52)
+}
+
+/// The shared core of [`exp`] and [`exp_nonpositive`]: `(e^r, n)` with x = n ln2 + r,
+/// |r| <= ln2 / 2 (Cody–Waite reduction, ln2 split in a high and a low part) and e^r by its
+/// Taylor polynomial of degree 12 (truncation below 2e-16 relative) in Estrin's scheme.
+#[inline(always)]
+fn exp_reduced(x: f64) -> (f64, f64) {
     let t = x * std::f64::consts::LOG2_E + MAGIC;
     let n = t - MAGIC;
     let r = (x - n * LN2_HI) - n * LN2_LO;
@@ -94,15 +121,7 @@ pub fn exp(x: f64) -> f64 {
     let q1 = (C[4] + C[5] * r) + (C[6] + C[7] * r) * r2;
     let q2 = (C[8] + C[9] * r) + (C[10] + C[11] * r) * r2;
     let p = (q0 + q1 * r4) + (q2 + C[12] * r4) * r8;
-    // n in [-1077, 1025]: split it in halves so that each 2^k is a normal number.
-    let t1 = n * 0.5 + MAGIC;
-    let n1 = t1 - MAGIC;
-    let t2 = (n - n1) + MAGIC;
-    let k1 = t1.to_bits().wrapping_sub(MAGIC.to_bits());
-    let k2 = t2.to_bits().wrapping_sub(MAGIC.to_bits());
-    let s1 = f64::from_bits(k1.wrapping_add(1023) << 52);
-    let s2 = f64::from_bits(k2.wrapping_add(1023) << 52);
-    p * s1 * s2
+    (p, n)
 }
 
 /// Natural logarithm, branch-free (see the module docs for the accuracy and the special
@@ -275,6 +294,23 @@ pub fn pow_positive_scalar(x: f64, y: f64) -> f64 {
 
 #[cfg(test)]
 mod tests {
+    #[test]
+    fn exp_nonpositive_matches_exp_bit_for_bit_and_std_within_3_ulp() {
+        let mut worst: f64 = 0.0;
+        for i in 0..=700_000 {
+            let x = -700.0 * i as f64 / 700_000.0;
+            let a = exp_nonpositive(x);
+            assert_eq!(a.to_bits(), exp(x).to_bits(), "x = {x}");
+            if x > -30.0 {
+                let b = x.exp();
+                worst = worst.max(((a - b) / b).abs());
+            }
+        }
+        assert!(worst < 6.7e-16, "worst relative error {worst}"); // 3 ulp
+        assert_eq!(exp_nonpositive(0.0), 1.0);
+        assert_eq!(exp_nonpositive(-1e6), exp(-700.0));
+    }
+
     use super::*;
 
     /// Distance in units in the last place between two finite floats of the same sign.
