@@ -335,8 +335,8 @@ pub const BATCH: usize = 8;
 /// scalar kernel (the reference) takes every element the fast one leaves. Same
 /// broadcasting, NaN, error-index, raise/coerce and parallel rules as [`lift`].
 ///
-/// `batch(xs, ys)` gets the gathered inputs `xs`, writes values into `ys` and returns, per
-/// element, whether its value is final; for the others (points off its fast path, invalid
+/// `batch(xs, ys)` gets the gathered inputs `xs` (`xs[i][l]`: input `i` of lane `l`), writes
+/// values into `ys` and returns, per element, whether its value is final; for the others (points off its fast path, invalid
 /// inputs) `scalar` is called, and its result or error is used. A final value must be
 /// exactly what `scalar` would return. In the last batch of a chunk the unused slots are
 /// filled with copies of the batch's first element and their results are discarded.
@@ -352,10 +352,10 @@ pub const BATCH: usize = 8;
 /// use stocktank::error::positive;
 /// let x = arr1(&[1.0, 2.0, -3.0]).into_dyn();
 /// // Fast path for positive inputs; the scalar kernel reports the error.
-/// let batch = |xs: &[[f64; 1]; BATCH], ys: &mut [f64; BATCH]| -> [bool; BATCH] {
+/// let batch = |[x]: &[[f64; BATCH]; 1], ys: &mut [f64; BATCH]| -> [bool; BATCH] {
 ///     std::array::from_fn(|l| {
-///         ys[l] = 2.0 * xs[l][0];
-///         xs[l][0] > 0.0
+///         ys[l] = 2.0 * x[l];
+///         x[l] > 0.0
 ///     })
 /// };
 /// let scalar = |[x]: [f64; 1]| positive("x", x).map(|v| 2.0 * v);
@@ -372,7 +372,7 @@ pub fn lift_batched<const N: usize, B, S>(
     scalar: S,
 ) -> Result<ArrayD<f64>>
 where
-    B: Fn(&[[f64; N]; BATCH], &mut [f64; BATCH]) -> [bool; BATCH] + Sync,
+    B: Fn(&[[f64; BATCH]; N], &mut [f64; BATCH]) -> [bool; BATCH] + Sync,
     S: Fn([f64; N]) -> Result<f64> + Sync,
 {
     let shapes: [&[usize]; N] = inputs.each_ref().map(|v| v.shape());
@@ -390,31 +390,44 @@ where
         let mut k0 = 0;
         while k0 < len {
             let m = BATCH.min(len - k0);
-            let mut xs = [[0.0; N]; BATCH];
-            for (j, x) in xs.iter_mut().take(m).enumerate() {
-                *x = std::array::from_fn(|i| sources[i].get(start + k0 + j, &multi));
-                if strided {
+            // Lanes per input (structure of arrays): contiguous inputs are one copy each.
+            let flat = start + k0;
+            let mut xs = [[0.0; BATCH]; N];
+            if strided {
+                for j in 0..m {
+                    for (x, src) in xs.iter_mut().zip(&sources) {
+                        x[j] = src.get(flat + j, &multi);
+                    }
                     advance(&mut multi, &shape);
                 }
+            } else {
+                for (x, src) in xs.iter_mut().zip(&sources) {
+                    match src {
+                        Source::Direct(d) => x[..m].copy_from_slice(&d[flat..flat + m]),
+                        _ => *x = [src.get(flat, &multi); BATCH],
+                    }
+                }
             }
-            for j in m..BATCH {
-                xs[j] = xs[0];
+            for x in xs.iter_mut() {
+                let first = x[0];
+                x[m..].fill(first);
             }
             let mut ys = [0.0; BATCH];
             let done = batch(&xs, &mut ys);
             for j in 0..m {
-                chunk[k0 + j] = if xs[j].iter().any(|v| v.is_nan()) {
+                let x: [f64; N] = std::array::from_fn(|i| xs[i][j]);
+                chunk[k0 + j] = if x.iter().any(|v| v.is_nan()) {
                     f64::NAN
                 } else if done[j] {
                     ys[j]
                 } else {
-                    match scalar(xs[j]) {
+                    match scalar(x) {
                         Ok(v) => v,
                         Err(e) => match on_error {
                             OnError::Coerce => f64::NAN,
                             OnError::Raise => {
                                 let mut at = vec![0usize; shape.len()];
-                                unravel(start + k0 + j, &shape, &mut at);
+                                unravel(flat + j, &shape, &mut at);
                                 return Some((at, e));
                             }
                         },
@@ -522,10 +535,10 @@ mod tests {
     #[test]
     fn batched_matches_lift() {
         // Fast path only for a > 1.5, so that both the batch and the scalar kernel are used.
-        let batch = |xs: &[[f64; 2]; BATCH], ys: &mut [f64; BATCH]| -> [bool; BATCH] {
+        let batch = |[a, b]: &[[f64; BATCH]; 2], ys: &mut [f64; BATCH]| -> [bool; BATCH] {
             std::array::from_fn(|l| {
-                ys[l] = xs[l][0] * xs[l][1];
-                xs[l][0] > 1.5
+                ys[l] = a[l] * b[l];
+                a[l] > 1.5
             })
         };
         let scalar = |[a, b]: [f64; 2]| Ok(positive("a", a)? * b);

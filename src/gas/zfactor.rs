@@ -781,14 +781,14 @@ fn dak_guess<const L: usize>(
 /// input, or four Newton steps not enough) are marked `false`: call [`z_dak`] for them.
 ///
 /// # Arguments
-/// * `x` - (Ppr, Tpr) pairs.
-/// * `z` - the Z-factor of each pair where the returned flag is `true`.
+/// * `x` - `[ppr, tpr]`, one lane per point.
+/// * `z` - the Z-factor of each point where the returned flag is `true`.
 ///
 /// # Examples
 /// ```
 /// use stocktank::array::BATCH;
-/// let mut x = [[2.0, 1.5]; BATCH];
-/// x[1] = [-1.0, 1.5];
+/// let mut x = [[2.0; BATCH], [1.5; BATCH]];
+/// x[0][1] = -1.0;
 /// let mut z = [0.0; BATCH];
 /// let done = stocktank::gas::z_dak_batch(&x, &mut z);
 /// assert!(done[0] && !done[1]);
@@ -797,12 +797,12 @@ fn dak_guess<const L: usize>(
 ///
 /// # References
 /// Dranchuk, P.M., Abou-Kassem, J.H. (1975). J. Can. Pet. Technol. 14(3), 34–36.
-pub fn z_dak_batch(x: &[[f64; 2]; BATCH], z: &mut [f64; BATCH]) -> [bool; BATCH] {
+pub fn z_dak_batch(x: &[[f64; BATCH]; 2], z: &mut [f64; BATCH]) -> [bool; BATCH] {
     z_dak_batch_dispatch(x, z)
 }
 
 crate::simd::multiversion! {
-    fn z_dak_batch_dispatch(x: &[[f64; 2]; BATCH], z: &mut [f64; BATCH]) -> [bool; BATCH] => z_dak_batch_body
+    fn z_dak_batch_dispatch(x: &[[f64; BATCH]; 2], z: &mut [f64; BATCH]) -> [bool; BATCH] => z_dak_batch_body
 }
 
 crate::simd::multiversion! {
@@ -810,10 +810,8 @@ crate::simd::multiversion! {
 }
 
 #[inline(always)]
-fn z_dak_batch_body(x: &[[f64; 2]; BATCH], z: &mut [f64; BATCH]) -> [bool; BATCH] {
-    let ppr: [f64; BATCH] = std::array::from_fn(|l| x[l][0]);
-    let tpr: [f64; BATCH] = std::array::from_fn(|l| x[l][1]);
-    let (x0, fast, p, t) = dak_guess(dak_table(), &ppr, &tpr);
+fn z_dak_batch_body([ppr, tpr]: &[[f64; BATCH]; 2], z: &mut [f64; BATCH]) -> [bool; BATCH] {
+    let (x0, fast, p, t) = dak_guess(dak_table(), ppr, tpr);
     let target: [f64; BATCH] = std::array::from_fn(|l| 0.27 * p[l]);
     let mut c = [[0.0; BATCH]; 4];
     for l in 0..BATCH {
@@ -1128,7 +1126,11 @@ mod tests {
         let pts = points(200_000);
         let mut fast = 0;
         for c in pts.chunks_exact(BATCH) {
-            let x: &[[f64; 2]; BATCH] = c.try_into().unwrap();
+            let x: [[f64; BATCH]; 2] = [
+                std::array::from_fn(|l| c[l][0]),
+                std::array::from_fn(|l| c[l][1]),
+            ];
+            let x = &x;
             // Baseline copy (this test function is compiled for the baseline target) and
             // the dispatched copy (AVX2 + FMA where the processor has them).
             let (mut z0, mut z1) = ([0.0; BATCH], [0.0; BATCH]);
@@ -1138,8 +1140,9 @@ mod tests {
             for l in 0..BATCH {
                 if d0[l] {
                     fast += 1;
-                    assert_eq!(z0[l].to_bits(), z1[l].to_bits(), "{:?}", x[l]);
-                    assert_eq!(z0[l], z_dak(x[l][0], x[l][1]).unwrap(), "{:?}", x[l]);
+                    let (p, t) = (x[0][l], x[1][l]);
+                    assert_eq!(z0[l].to_bits(), z1[l].to_bits(), "{p} {t}");
+                    assert_eq!(z0[l], z_dak(p, t).unwrap(), "{p} {t}");
                 }
             }
         }
