@@ -14,7 +14,7 @@
 //!    index draws' bias below n / 2^64), are transformed
 //!    by `P Q^-1` (Cholesky factors of the target and of the scores' sample correlation) and
 //!    each input's sorted samples are placed in the rank order of its transformed scores
-//!    (ranked by a distribution sort; the first input needs no ranking, as its transformed
+//!    (the first input needs no ranking, as its transformed
 //!    scores are a positive multiple of its permuted scores).
 //!    The marginal distributions are untouched. The target is a rank (Spearman) correlation;
 //!    it is converted to the Pearson correlation of the normal scores by
@@ -367,105 +367,8 @@ fn key32(x: f64) -> u32 {
 }
 
 #[inline]
-fn from_key32(k: u32) -> f64 {
-    f32::from_bits(if k >> 31 == 1 { k & !(1 << 31) } else { !k }) as f64
-}
-
-#[inline]
 fn from_key64(k: u64) -> f64 {
     f64::from_bits(if k >> 63 == 1 { k & !(1 << 63) } else { !k })
-}
-
-/// A non-decreasing map of values onto `nb` buckets of about equal counts, estimated from
-/// the histogram of an evenly strided subsample over 4096 equal cells of [min, max] (a
-/// piecewise-linear estimate of the distribution function).
-struct Buckets {
-    lo: f64,
-    inv: f64,
-    nb: usize,
-    cum: Vec<f64>,
-}
-
-impl Buckets {
-    const CELLS: usize = 4096;
-
-    fn new(x: &[f64], nb: usize) -> Self {
-        let cells = Self::CELLS;
-        let (lo, hi) = min_max(x);
-        let width = hi - lo;
-        let inv = if width > 0.0 && width.is_finite() {
-            cells as f64 / width
-        } else {
-            0.0
-        };
-        let mut cum = vec![0.0f64; cells + 1];
-        if inv > 0.0 {
-            let stride = (x.len() / 65_536).max(1);
-            let mut m = 0usize;
-            for &v in x.iter().step_by(stride) {
-                if v.is_finite() {
-                    cum[(((v - lo) * inv) as usize).min(cells - 1) + 1] += 1.0;
-                    m += 1;
-                }
-            }
-            let mut acc = 0.0;
-            for c in cum.iter_mut() {
-                acc += *c;
-                *c = acc * nb as f64 / m.max(1) as f64;
-            }
-        }
-        Buckets { lo, inv, nb, cum }
-    }
-
-    /// The bucket of `v`; non-decreasing in `v` (`as usize` saturates: values below the
-    /// minimum go to bucket 0; NaN to the last).
-    #[inline]
-    fn of(&self, v: f64) -> usize {
-        if v.is_nan() {
-            return self.nb - 1;
-        }
-        let t = (v - self.lo) * self.inv;
-        let c = (t as usize).min(Self::CELLS - 1);
-        let f = (t - c as f64).clamp(0.0, 1.0);
-        let (a, b) = (self.cum[c], self.cum[c + 1]);
-        // Clamped to the cell so that rounding cannot break the order across cells.
-        ((a + f * (b - a)).min(b) as usize).min(self.nb - 1)
-    }
-}
-
-/// Sort integer words whose order agrees with `bucket` (non-decreasing in the word): one
-/// distribution pass into `nb` buckets of a few thousand words each, then a pattern-
-/// defeating quicksort of each bucket while it sits in cache. The result is the exact
-/// sorted order whatever the buckets' sizes (uneven buckets only cost time).
-///
-/// # References
-/// Knuth, D.E. (1998). The Art of Computer Programming, Vol. 3, 2nd ed., Addison-Wesley,
-/// sections 5.2 (distribution counting) and 5.2.5 (sorting by distribution).
-fn distribution_sort(words: &[u64], nb: usize, bucket: impl Fn(u64) -> usize) -> Vec<u64> {
-    let b: Vec<u16> = words.iter().map(|&w| bucket(w) as u16).collect();
-    let mut next = vec![0usize; nb];
-    for &k in &b {
-        next[k as usize] += 1;
-    }
-    let mut acc = 0;
-    for e in next.iter_mut() {
-        let c = *e;
-        *e = acc;
-        acc += c;
-    }
-    let mut out = vec![0u64; words.len()];
-    for (&k, &w) in b.iter().zip(words) {
-        let slot = &mut next[k as usize];
-        out[*slot] = w;
-        *slot += 1;
-    }
-    // `next[k]` is now one past the end of bucket k.
-    let mut start = 0;
-    for &stop in &next {
-        out[start..stop].sort_unstable();
-        start = stop;
-    }
-    out
 }
 
 /// A uniformly random permutation of `items` by the scatter shuffle: each item goes to one
@@ -514,44 +417,28 @@ fn scatter_shuffle<T: Copy + Default>(
     out
 }
 
-/// Number of buckets for [`distribution_sort`]: about 2048 words (16 KiB) per bucket.
+/// Number of buckets for [`scatter_shuffle`]: about 2048 items per bucket.
 fn bucket_count(n: usize) -> usize {
     (n / 2048).clamp(1, u16::MAX as usize)
 }
 
-/// Argsort of `x` by its 32-bit keys (ties, at f32 resolution, by index): a
-/// [`distribution_sort`] of packed `key << 32 | index` words.
+/// Argsort of `x` by its 32-bit keys (ties, at f32 resolution, by index): one sort of
+/// packed `key << 32 | index` words.
 fn key_order(x: &[f64]) -> Vec<u32> {
-    let nb = bucket_count(x.len());
-    let packed: Vec<u64> = x
+    let mut packed: Vec<u64> = x
         .iter()
         .enumerate()
         .map(|(i, &v)| ((key32(v) as u64) << 32) | i as u64)
         .collect();
-    let buckets = Buckets::new(x, nb);
-    distribution_sort(&packed, nb, |w| buckets.of(from_key32((w >> 32) as u32)))
-        .into_iter()
-        .map(|v| v as u32)
-        .collect()
+    packed.sort_unstable();
+    packed.into_iter().map(|v| v as u32).collect()
 }
 
 /// Sort f64 values exactly (NaN last), through their order-preserving integer keys.
 pub(crate) fn sort_values(x: &[f64]) -> Vec<f64> {
-    let nb = bucket_count(x.len());
-    let keys: Vec<u64> = x.iter().map(|&v| key64(v)).collect();
-    let buckets = Buckets::new(x, nb);
-    distribution_sort(&keys, nb, |w| buckets.of(from_key64(w)))
-        .into_iter()
-        .map(from_key64)
-        .collect()
-}
-
-/// Smallest and largest value (NaN ignored; (inf, -inf) when empty).
-fn min_max(x: &[f64]) -> (f64, f64) {
-    x.iter()
-        .fold((f64::INFINITY, f64::NEG_INFINITY), |(a, b), &v| {
-            (a.min(v), b.max(v))
-        })
+    let mut k: Vec<u64> = x.iter().map(|&v| key64(v)).collect();
+    k.sort_unstable();
+    k.into_iter().map(from_key64).collect()
 }
 
 /// Re-pair the columns in place so that their rank correlation approaches `target`
