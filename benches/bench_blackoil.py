@@ -96,7 +96,7 @@ def numpy_tables(p_grid, api, g, t, gor):
     co = np.where(below, (-dbo + bg_rb * drs) / bo, col(acoef) / p)
     rho_air = M_AIR * P_SC / (R * (T_SC + 459.67))
     rho_o = (RHO_W * col(sg) + rs * col(g) * rho_air / FT3_PER_BBL) / bo
-    mu_od = 10 ** (t**-1.163 * np.exp(6.9824 - 0.04658 * api)) - 1
+    mu_od = 10 ** (t**-1.163 * 10 ** (3.0324 - 0.02023 * api)) - 1  # Beggs–Robinson (1975), published constants
 
     def live(rs_):
         return 10.715 * (rs_ + 100) ** -0.515 * col(mu_od) ** (5.44 * (rs_ + 150) ** -0.338)
