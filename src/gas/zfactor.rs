@@ -676,11 +676,12 @@ fn dak_newton<const L: usize>(
     target: &[f64; L],
     x0: &[f64; L],
     steps: usize,
-) -> ([f64; L], [f64; L], [bool; L]) {
+) -> ([f64; L], [f64; L], [u64; L]) {
     let mut x = *x0;
     let mut dx = [0.0; L];
     let mut dp = [0.0; L];
-    let mut ok = [true; L];
+    // 1 = still converging; integer flags stay in vector registers (bool arrays are bytes).
+    let mut ok = [1u64; L];
     // exp(-A11 rho^2) at the current iterate: in full at the start, then carried from
     // step to step by the factor exp(-A11 (x_new^2 - x^2)), whose small argument needs
     // only a short series (a lane whose step is too large for it is marked not converged
@@ -705,19 +706,19 @@ fn dak_newton<const L: usize>(
             dx[l] = (p - target[l]) / d;
             dp[l] = d;
             x[l] = r - dx[l];
-            ok[l] &= (d > 0.0) & (x[l] > 0.0) & (x[l] < DAK_RHO_HI);
+            ok[l] &= u64::from((d > 0.0) & (x[l] > 0.0) & (x[l] < DAK_RHO_HI));
             // x_new^2 - x^2 = (x_new - x)(x_new + x); the difference is exact (Sterbenz).
             a[l] = A11 * (r - x[l]) * (r + x[l]);
         }
         if !last {
             for l in 0..L {
                 e[l] *= exp_small(a[l]);
-                ok[l] &= a[l].abs() <= EXP_SMALL_MAX;
+                ok[l] &= u64::from(a[l].abs() <= EXP_SMALL_MAX);
             }
         }
     }
     for l in 0..L {
-        ok[l] &= dx[l].abs() <= Z_TOLERANCE * x[l];
+        ok[l] &= u64::from(dx[l].abs() <= Z_TOLERANCE * x[l]);
     }
     (x, dp, ok)
 }
@@ -738,14 +739,14 @@ fn dak_fast<const L: usize>(
     x0: &[f64; L],
 ) -> ([f64; L], [f64; L], [u32; L]) {
     let (mut x, mut dp, ok) = dak_newton(tpr, c, target, x0, 2);
-    let mut it = ok.map(|o| if o { 2 } else { 0 });
-    if ok.iter().all(|&o| o) {
+    let mut it = ok.map(|o| 2 * o as u32);
+    if ok.iter().fold(1, |all, &o| all & o) == 1 {
         return (x, dp, it);
     }
     let (x4, dp4, ok4) = dak_newton(tpr, c, target, &x, 2);
     for l in 0..L {
-        if !ok[l] {
-            (x[l], dp[l], it[l]) = (x4[l], dp4[l], if ok4[l] { 4 } else { 0 });
+        if ok[l] == 0 {
+            (x[l], dp[l], it[l]) = (x4[l], dp4[l], 4 * ok4[l] as u32);
         }
     }
     (x, dp, it)
