@@ -371,22 +371,19 @@ fn from_key64(k: u64) -> f64 {
     f64::from_bits(if k >> 63 == 1 { k & !(1 << 63) } else { !k })
 }
 
-/// A uniformly random permutation of `items` by the scatter shuffle: each item goes to one
-/// of about n / 2048 buckets drawn uniformly at random, then each bucket (small enough to
-/// stay in cache) is shuffled by Fisher–Yates (Durstenfeld 1964) with Lemire's (2019)
-/// multiply-shift index draw. Every permutation is equally likely (up to the index draws'
-/// bias below n / 2^64); unlike one Fisher–Yates pass over the whole array it touches
-/// memory in a few sequential streams.
+/// One uniformly random permutation applied to each of the `L` equally long slices, by the
+/// scatter shuffle: each position goes to one of about n / 2048 buckets drawn uniformly at
+/// random, then each bucket (small enough to stay in cache) is shuffled by Fisher–Yates
+/// (Durstenfeld 1964) with Lemire's (2019) multiply-shift index draw. Every permutation is
+/// equally likely (up to the index draws' bias below n / 2^64); unlike one Fisher–Yates
+/// pass over the whole array it touches memory in a few sequential streams.
 ///
 /// # References
 /// Rao, C.R. (1961). Generation of random permutations of given number of elements using
 /// random sampling numbers. Sankhya A 23, 305–307; Sandelius, M. (1962). A simple
 /// randomization procedure. J. Royal Statistical Society B 24(2), 472–481 (from memory).
-fn scatter_shuffle<T: Copy + Default>(
-    items: impl ExactSizeIterator<Item = T> + Clone,
-    rng: &mut Rng,
-) -> Vec<T> {
-    let n = items.len();
+fn scatter_shuffle<const L: usize>(src: [&[f64]; L], rng: &mut Rng) -> [Vec<f64>; L] {
+    let n = src.first().map_or(0, |s| s.len());
     let nb = bucket_count(n);
     let draw = |rng: &mut Rng, m: usize| ((rng.next_u64() as u128 * m as u128) >> 64) as usize;
     let b: Vec<u16> = (0..n).map(|_| draw(rng, nb) as u16).collect();
@@ -400,17 +397,22 @@ fn scatter_shuffle<T: Copy + Default>(
         *e = acc;
         acc += c;
     }
-    let mut out = vec![T::default(); n];
-    for (&k, v) in b.iter().zip(items) {
+    // Zeroed by the allocator (fresh pages), then every element is overwritten.
+    let mut out: [Vec<f64>; L] = std::array::from_fn(|_| vec![0.0; n]);
+    for (t, &k) in b.iter().enumerate() {
         let slot = &mut next[k as usize];
-        out[*slot] = v;
+        for (o, s) in out.iter_mut().zip(&src) {
+            o[*slot] = s[t];
+        }
         *slot += 1;
     }
     let mut start = 0;
     for &stop in &next {
-        let bucket = &mut out[start..stop];
-        for i in (1..bucket.len()).rev() {
-            bucket.swap(i, draw(rng, i + 1));
+        for i in (1..stop - start).rev() {
+            let j = draw(rng, i + 1);
+            for o in out.iter_mut() {
+                o.swap(start + i, start + j);
+            }
         }
         start = stop;
     }
@@ -420,6 +422,18 @@ fn scatter_shuffle<T: Copy + Default>(
 /// Number of buckets for [`scatter_shuffle`]: about 2048 items per bucket.
 fn bucket_count(n: usize) -> usize {
     (n / 2048).clamp(1, u16::MAX as usize)
+}
+
+/// The packed words `key32 << 32 | index` of `x` in ascending order (an argsort by 32-bit
+/// keys, ties by index, in the low 32 bits), sorted in the memory of `x`.
+fn key_order_owned(x: Vec<f64>) -> Vec<u64> {
+    let mut packed: Vec<u64> = x
+        .into_iter()
+        .enumerate()
+        .map(|(i, v)| ((key32(v) as u64) << 32) | i as u64)
+        .collect();
+    packed.sort_unstable();
+    packed
 }
 
 /// Argsort of `x` by its 32-bit keys (ties, at f32 resolution, by index): one sort of
@@ -434,11 +448,45 @@ fn key_order(x: &[f64]) -> Vec<u32> {
     packed.into_iter().map(|v| v as u32).collect()
 }
 
-/// Sort f64 values exactly (NaN last), through their order-preserving integer keys.
-pub(crate) fn sort_values(x: &[f64]) -> Vec<f64> {
-    let mut k: Vec<u64> = x.iter().map(|&v| key64(v)).collect();
+/// Sort f64 values exactly (NaN last), through their order-preserving integer keys (which
+/// reuse the vector's memory).
+pub(crate) fn sort_values(x: Vec<f64>) -> Vec<f64> {
+    let mut k: Vec<u64> = x.into_iter().map(key64).collect();
     k.sort_unstable();
     k.into_iter().map(from_key64).collect()
+}
+
+/// Spare vectors of n f64 handed from one step of a run to the next: on this kind of
+/// machine fresh pages (a fault and zeroing per 4 KiB) cost more than the work done in
+/// them, so a step that frees a column lends it to a later step. Contents are unspecified;
+/// every taker overwrites all n values, so results do not depend on which vector it gets.
+struct Pool {
+    n: usize,
+    free: std::sync::Mutex<Vec<Vec<f64>>>,
+}
+
+impl Pool {
+    fn new(n: usize) -> Self {
+        Pool {
+            n,
+            free: std::sync::Mutex::new(Vec::new()),
+        }
+    }
+
+    /// A vector of length n (spare if any, else fresh).
+    fn take(&self) -> Vec<f64> {
+        let spare = self.free.lock().ok().and_then(|mut f| f.pop());
+        spare.unwrap_or_else(|| vec![0.0; self.n])
+    }
+
+    /// Lend a vector back (kept only if it has length n).
+    fn give(&self, v: Vec<f64>) {
+        if v.len() == self.n {
+            if let Ok(mut f) = self.free.lock() {
+                f.push(v);
+            }
+        }
+    }
 }
 
 /// Re-pair the columns in place so that their rank correlation approaches `target`
@@ -469,16 +517,22 @@ pub(crate) fn sort_values(x: &[f64]) -> Vec<f64> {
 /// # References
 /// Iman, R.L., Conover, W.J. (1982). Commun. Statist. Simula. Computa. 11(3), 311–334.
 pub fn iman_conover(columns: &mut [Vec<f64>], target: &Correlation, seed: u64) -> Result<()> {
-    iman_conover_impl(columns, target, seed, false)
+    let n = columns.first().map_or(0, |c| c.len());
+    iman_conover_impl(columns, target, seed, false, 0, &Pool::new(n)).map(|_| ())
 }
 
 /// [`iman_conover`]; `presorted` promises that every column is already in ascending order.
+/// Returns, for every column but the first, the rank (0-based, within the whole column) of
+/// the samples of trials `0..keep_ranks` after the re-pairing (empty vectors when
+/// `keep_ranks` is 0 and for the first column). Vectors it frees go to `pool`.
 fn iman_conover_impl(
     columns: &mut [Vec<f64>],
     target: &Correlation,
     seed: u64,
     presorted: bool,
-) -> Result<()> {
+    keep_ranks: usize,
+    pool: &Pool,
+) -> Result<Vec<Vec<u32>>> {
     let k = columns.len();
     if k != target.k {
         return Err(Error::Shape(format!(
@@ -487,7 +541,7 @@ fn iman_conover_impl(
         )));
     }
     if k == 0 {
-        return Ok(());
+        return Ok(Vec::new());
     }
     let n = columns[0].len();
     if columns.iter().any(|c| c.len() != n) {
@@ -496,7 +550,7 @@ fn iman_conover_impl(
         ));
     }
     if n < 2 {
-        return Ok(());
+        return Ok(vec![Vec::new(); k]);
     }
     // Van der Waerden scores, then an independent random permutation per column.
     let mut base: Vec<f64> = (0..n)
@@ -509,30 +563,29 @@ fn iman_conover_impl(
     if !presorted {
         columns
             .par_iter_mut()
-            .for_each(|col| *col = sort_values(col));
+            .for_each(|col| *col = sort_values(std::mem::take(col)));
     }
     // One uniformly random permutation of the scores per column (scatter shuffle). Column
     // 0's transformed scores are a positive multiple of its own (M is lower triangular), so
     // its sorted samples simply travel with its scores through the same permutation: no
     // ranking for it.
-    let mut scores: Vec<Vec<f64>> = Vec::with_capacity(k);
     let col0 = std::mem::take(&mut columns[0]);
     let shuffled: Vec<(Vec<f64>, Option<Vec<f64>>)> = (0..k)
         .into_par_iter()
         .map(|j| {
             let mut rng = Rng::new(seed, 0x1C_0000 + j as u64, 0);
             if j == 0 {
-                let pairs =
-                    scatter_shuffle(base.iter().copied().zip(col0.iter().copied()), &mut rng);
-                let (s, c): (Vec<f64>, Vec<f64>) = pairs.into_iter().unzip();
+                let [s, c] = scatter_shuffle([&base, &col0], &mut rng);
                 (s, Some(c))
             } else {
-                (scatter_shuffle(base.iter().copied(), &mut rng), None)
+                let [s] = scatter_shuffle([&base], &mut rng);
+                (s, None)
             }
         })
         .collect();
-    drop(base);
-    drop(col0);
+    pool.give(base);
+    pool.give(col0);
+    let mut scores: Vec<Vec<f64>> = Vec::with_capacity(k);
     for (j, (s, c)) in shuffled.into_iter().enumerate() {
         scores.push(s);
         if let Some(c) = c {
@@ -592,18 +645,32 @@ fn iman_conover_impl(
         });
     }
     // Place each column's sorted samples in the rank order of its scores (column 0 is
-    // placed already).
+    // placed already); the rank of each of the first `keep` trials is noted on the way. The
+    // scores' memory holds the packed sort keys; the placed column takes a spare vector.
+    let keep = keep_ranks.min(n);
+    let s0 = scores.remove(0);
+    pool.give(s0);
+    let mut kept: Vec<Vec<u32>> = vec![Vec::new(); k];
     columns[1..]
         .par_iter_mut()
-        .zip(scores[1..].par_iter())
-        .for_each(|(col, s)| {
-            let sorted = std::mem::take(col);
-            col.resize(n, 0.0);
-            for (r, &i) in key_order(s).iter().enumerate() {
-                col[i as usize] = sorted[r];
+        .zip(scores.into_par_iter())
+        .zip(kept[1..].par_iter_mut())
+        .for_each(|((col, s), kept)| {
+            let order = key_order_owned(s);
+            let sorted = std::mem::replace(col, pool.take());
+            if keep > 0 {
+                kept.resize(keep, 0);
             }
+            for (r, &p) in order.iter().enumerate() {
+                let i = p as u32 as usize;
+                col[i] = sorted[r];
+                if i < keep {
+                    kept[i] = r as u32;
+                }
+            }
+            pool.give(sorted);
         });
-    Ok(())
+    Ok(kept)
 }
 
 /// Spearman rank correlation of two equally long samples (ties ranked arbitrarily); NaN when
@@ -636,6 +703,30 @@ fn ranks(x: &[f64]) -> Vec<f64> {
         r[i as usize] = k as f64;
     }
     r
+}
+
+/// Ranks 0..m of the first m trials among themselves, from their ranks `global` (distinct,
+/// each < n) within all n trials: a bit per global rank, then each rank's position among the
+/// set bits. The same order as ranking the m values again, in O(n / 64 + m).
+fn ranks_from_global(global: &[u32], n: usize) -> Vec<f64> {
+    let mut bits = vec![0u64; n.div_ceil(64)];
+    for &g in global {
+        bits[g as usize / 64] |= 1 << (g % 64);
+    }
+    let mut below = Vec::with_capacity(bits.len());
+    let mut acc = 0u32;
+    for &w in &bits {
+        below.push(acc);
+        acc += w.count_ones();
+    }
+    global
+        .iter()
+        .map(|&g| {
+            let (w, b) = (g as usize / 64, g % 64);
+            let under = bits[w] & ((1u64 << b) - 1);
+            (below[w] + under.count_ones()) as f64
+        })
+        .collect()
 }
 
 /// Pearson correlation of two rank vectors of equal length (NaN if either is empty).
@@ -775,12 +866,20 @@ pub struct Summary {
 /// assert_eq!(s.p50, 3.0);
 /// ```
 pub fn summarize(data: &[f64]) -> Result<Summary> {
+    summarize_with(data, &Pool::new(data.len()))
+}
+
+/// [`summarize`] with its scratch copy of `data` taken from (and returned to) `pool`.
+fn summarize_with(data: &[f64], pool: &Pool) -> Result<Summary> {
     if let Some(i) = data.iter().position(|x| x.is_nan()) {
         return Err(Error::invalid("data", f64::NAN, "sample holds NaN").at_index(&[i]));
     }
     let n = data.len();
-    let mut copy = data.to_vec();
-    let p = percentiles(&mut copy, &[0.1, 0.5, 0.9])?;
+    let mut copy = pool.take();
+    copy.copy_from_slice(data);
+    let p = percentiles(&mut copy, &[0.1, 0.5, 0.9]);
+    pool.give(copy);
+    let p = p?;
     let mean = det_sum(n, |r| r.map(|t| data[t]).sum()) / n as f64;
     let var = if n > 1 {
         det_sum(n, |r| r.map(|t| (data[t] - mean) * (data[t] - mean)).sum()) / (n - 1) as f64
@@ -954,7 +1053,11 @@ pub fn probabilistic_in_place(
                 .then(|| TORNADO_Q.map(|q| quantile_sorted(&cols[j], q)))
         })
         .collect();
-    // Correlate the inputs that take part in a correlation.
+    // Correlate the inputs that take part in a correlation; keep the ranks of the tornado's
+    // first `n_rank` trials that the re-pairing finds anyway.
+    let n_rank = trials.min(200_000);
+    let pool = Pool::new(trials);
+    let mut known_ranks: Vec<Vec<u32>> = vec![Vec::new(); k];
     if let Some(c) = correlation {
         if !active.is_empty() {
             let m = active.len();
@@ -969,26 +1072,30 @@ pub fn probabilistic_in_place(
                 .iter()
                 .map(|&i| std::mem::take(&mut cols[i]))
                 .collect();
-            iman_conover_impl(&mut taken, &sub, seed ^ 0x005E_ED1C, true)?;
-            for (&i, col) in active.iter().zip(taken) {
+            let kept =
+                iman_conover_impl(&mut taken, &sub, seed ^ 0x005E_ED1C, true, n_rank, &pool)?;
+            for ((&i, col), kept) in active.iter().zip(taken).zip(kept) {
                 cols[i] = col;
+                known_ranks[i] = kept;
             }
         }
     }
-    let in_place: Vec<f64> = (0..trials)
-        .into_par_iter()
-        .map(|t| volume(fluid, std::array::from_fn(|j| cols[j][t])))
-        .collect();
+    let mut in_place = pool.take();
+    in_place
+        .par_iter_mut()
+        .enumerate()
+        .for_each(|(t, v)| *v = volume(fluid, std::array::from_fn(|j| cols[j][t])));
     let recoverable = inputs.recovery_factor.map(|_| {
-        in_place
-            .par_iter()
+        let mut r = pool.take();
+        r.par_iter_mut()
+            .zip(in_place.par_iter())
             .zip(cols[Input::RecoveryFactor.index()].par_iter())
-            .map(|(v, rf)| v * rf)
-            .collect::<Vec<f64>>()
+            .for_each(|((r, v), rf)| *r = v * rf);
+        r
     });
-    let summary = summarize(&in_place)?;
+    let summary = summarize_with(&in_place, &pool)?;
     let recoverable_summary = match &recoverable {
-        Some(r) => Some(summarize(r)?),
+        Some(r) => Some(summarize_with(r, &pool)?),
         None => None,
     };
     // Tornado: each input at its P90/P10, the others at their P50 (the correlated inputs'
@@ -1005,11 +1112,20 @@ pub fn probabilistic_in_place(
             [p[0], p[1], p[2]]
         })
         .collect();
-    let sub = trials.min(200_000);
-    let vol_ranks = ranks(&in_place[..sub]);
+    // Spearman of each input with the volume over the first `n_rank` trials: the volume is
+    // ranked once; a correlated input's ranks follow from those of its re-pairing.
+    let vol_ranks = ranks(&in_place[..n_rank]);
     let rank_corr: Vec<f64> = (0..6)
         .into_par_iter()
-        .map(|j| rank_correlation(&ranks(&cols[j][..sub]), &vol_ranks))
+        .map(|j| {
+            let x = &cols[j][..n_rank];
+            let r = if known_ranks[j].len() == n_rank && x.iter().any(|&v| v != x[0]) {
+                ranks_from_global(&known_ranks[j], trials)
+            } else {
+                ranks(x)
+            };
+            rank_correlation(&r, &vol_ranks)
+        })
         .collect();
     let mut tornado: Vec<TornadoRow> = (0..6)
         .map(|j| {
@@ -1076,7 +1192,7 @@ mod tests {
             for x in awkward(n, n as u64) {
                 let mut want = x.clone();
                 want.sort_by(|a, b| a.total_cmp(b));
-                let got = sort_values(&x);
+                let got = sort_values(x.clone());
                 assert!(
                     got.iter()
                         .zip(&want)
@@ -1104,15 +1220,19 @@ mod tests {
         // (chi-square with 7 degrees of freedom; 24.3 is its 0.999 quantile, scipy.stats.chi2).
         let n = 10_000;
         let mut hits = [0usize; 8];
+        let items: Vec<f64> = (0..n).map(|i| i as f64).collect();
+        let twice: Vec<f64> = items.iter().map(|v| 2.0 * v).collect();
         for s in 0..2000 {
             let mut rng = Rng::new(s, 1, 0);
-            let p = scatter_shuffle(0..n as u32, &mut rng);
+            let [p, p2] = scatter_shuffle([&items, &twice], &mut rng);
             if s == 0 {
+                // The same permutation of both slices.
+                assert!(p.iter().zip(&p2).all(|(a, b)| 2.0 * a == *b));
                 let mut q = p.clone();
-                q.sort_unstable();
-                assert!(q.iter().enumerate().all(|(i, &v)| v as usize == i));
+                q.sort_by(f64::total_cmp);
+                assert_eq!(q, items);
             }
-            let at = p.iter().position(|&v| v == 0).unwrap();
+            let at = p.iter().position(|&v| v == 0.0).unwrap();
             hits[at * 8 / n] += 1;
         }
         let e = 2000.0 / 8.0;
