@@ -10,8 +10,8 @@
 //! 1. Each input is sampled independently from its [`Distribution`] (reproducible by seed).
 //! 2. Inputs that take part in a correlation are re-paired by Iman and Conover (1982): van
 //!    der Waerden scores Phi^-1(i/(n+1)), permuted independently per input (scatter shuffle
-//!    of Rao 1961 and Sandelius 1962 with Fisher–Yates inside each bucket; uniform up to the
-//!    index draws' bias below n / 2^64), are transformed
+//!    of Rao 1961 and Sandelius 1962 with Fisher–Yates inside each bucket and Lemire's exact
+//!    index draws: every permutation equally likely), are transformed
 //!    by `P Q^-1` (Cholesky factors of the target and of the scores' sample correlation) and
 //!    each input's sorted samples are placed in the rank order of its transformed scores
 //!    (the first input needs no ranking, as its transformed
@@ -371,12 +371,56 @@ fn from_key64(k: u64) -> f64 {
     f64::from_bits(if k >> 63 == 1 { k & !(1 << 63) } else { !k })
 }
 
+/// Uniform integer draws below a bound from 32-bit halves of the generator's words:
+/// Lemire's (2019) multiply-shift with his rejection step, so every value is exactly equally
+/// likely; two draws per 64-bit word.
+struct Below32<'a> {
+    rng: &'a mut Rng,
+    word: u64,
+    spare: bool,
+}
+
+impl<'a> Below32<'a> {
+    fn new(rng: &'a mut Rng) -> Self {
+        Below32 {
+            rng,
+            word: 0,
+            spare: false,
+        }
+    }
+
+    #[inline]
+    fn bits(&mut self) -> u32 {
+        if self.spare {
+            self.spare = false;
+            (self.word >> 32) as u32
+        } else {
+            self.word = self.rng.next_u64();
+            self.spare = true;
+            self.word as u32
+        }
+    }
+
+    /// A uniform integer in `0..m`, 1 <= m <= 2^32 - 1.
+    #[inline]
+    fn below(&mut self, m: u32) -> u32 {
+        let mut x = self.bits() as u64 * m as u64;
+        if (x as u32) < m {
+            let t = m.wrapping_neg() % m;
+            while (x as u32) < t {
+                x = self.bits() as u64 * m as u64;
+            }
+        }
+        (x >> 32) as u32
+    }
+}
+
 /// One uniformly random permutation applied to each of the `L` equally long slices, by the
 /// scatter shuffle: each position goes to one of about n / 2048 buckets drawn uniformly at
 /// random, then each bucket (small enough to stay in cache) is shuffled by Fisher–Yates
-/// (Durstenfeld 1964) with Lemire's (2019) multiply-shift index draw. Every permutation is
-/// equally likely (up to the index draws' bias below n / 2^64); unlike one Fisher–Yates
-/// pass over the whole array it touches memory in a few sequential streams.
+/// (Durstenfeld 1964). Index draws are exact (Lemire 2019, with rejection), so every
+/// permutation is equally likely; unlike one Fisher–Yates pass over the whole array it
+/// touches memory in a few sequential streams.
 ///
 /// # References
 /// Rao, C.R. (1961). Generation of random permutations of given number of elements using
@@ -385,8 +429,8 @@ fn from_key64(k: u64) -> f64 {
 fn scatter_shuffle<const L: usize>(src: [&[f64]; L], rng: &mut Rng) -> [Vec<f64>; L] {
     let n = src.first().map_or(0, |s| s.len());
     let nb = bucket_count(n);
-    let draw = |rng: &mut Rng, m: usize| ((rng.next_u64() as u128 * m as u128) >> 64) as usize;
-    let b: Vec<u16> = (0..n).map(|_| draw(rng, nb) as u16).collect();
+    let mut draw = Below32::new(rng);
+    let b: Vec<u16> = (0..n).map(|_| draw.below(nb as u32) as u16).collect();
     let mut next = vec![0usize; nb];
     for &k in &b {
         next[k as usize] += 1;
@@ -409,7 +453,7 @@ fn scatter_shuffle<const L: usize>(src: [&[f64]; L], rng: &mut Rng) -> [Vec<f64>
     let mut start = 0;
     for &stop in &next {
         for i in (1..stop - start).rev() {
-            let j = draw(rng, i + 1);
+            let j = draw.below(i as u32 + 1) as usize;
             for o in out.iter_mut() {
                 o.swap(start + i, start + j);
             }
@@ -432,20 +476,35 @@ fn key_order_owned(x: Vec<f64>) -> Vec<u64> {
         .enumerate()
         .map(|(i, v)| ((key32(v) as u64) << 32) | i as u64)
         .collect();
-    packed.sort_unstable();
+    // Scores are symmetric about 0: split there (one pass) so that two threads can sort
+    // the halves of each column (any split is correct; this one is balanced).
+    split_sort(&mut packed, (key32(0.0) as u64) << 32);
     packed
 }
 
-/// Argsort of `x` by its 32-bit keys (ties, at f32 resolution, by index): one sort of
-/// packed `key << 32 | index` words.
-fn key_order(x: &[f64]) -> Vec<u32> {
-    let mut packed: Vec<u64> = x
-        .iter()
-        .enumerate()
-        .map(|(i, &v)| ((key32(v) as u64) << 32) | i as u64)
-        .collect();
-    packed.sort_unstable();
-    packed.into_iter().map(|v| v as u32).collect()
+/// Sort `v`: partition around `pivot` (one pass), then sort the two sides in parallel.
+fn split_sort(v: &mut [u64], pivot: u64) {
+    if v.len() < 1 << 16 {
+        v.sort_unstable();
+        return;
+    }
+    let (mut i, mut j) = (0, v.len());
+    loop {
+        while i < j && v[i] < pivot {
+            i += 1;
+        }
+        while i < j && v[j - 1] >= pivot {
+            j -= 1;
+        }
+        if i >= j {
+            break;
+        }
+        v.swap(i, j - 1);
+        i += 1;
+        j -= 1;
+    }
+    let (lo, hi) = v.split_at_mut(i);
+    rayon::join(|| lo.sort_unstable(), || hi.sort_unstable());
 }
 
 /// Sort f64 values exactly (NaN last), through their order-preserving integer keys (which
@@ -693,13 +752,20 @@ pub fn spearman(a: &[f64], b: &[f64]) -> f64 {
     rank_correlation(&ranks(&a[..n]), &ranks(&b[..n]))
 }
 
-/// Ranks 0..n of a sample (ties, at f32 resolution, ranked by position); empty when the sample is constant.
+/// Ranks 0..n of a sample (exact order; equal values ranked by position); empty when the
+/// sample is constant.
 fn ranks(x: &[f64]) -> Vec<f64> {
     if x.iter().all(|&v| v == x[0]) {
         return Vec::new();
     }
+    let mut keyed: Vec<(u64, u32)> = x
+        .iter()
+        .enumerate()
+        .map(|(i, &v)| (key64(v), i as u32))
+        .collect();
+    keyed.sort_unstable();
     let mut r = vec![0.0; x.len()];
-    for (k, &i) in key_order(x).iter().enumerate() {
+    for (k, &(_, i)) in keyed.iter().enumerate() {
         r[i as usize] = k as f64;
     }
     r
@@ -1093,11 +1159,36 @@ pub fn probabilistic_in_place(
             .for_each(|((r, v), rf)| *r = v * rf);
         r
     });
-    let summary = summarize_with(&in_place, &pool)?;
-    let recoverable_summary = match &recoverable {
-        Some(r) => Some(summarize_with(r, &pool)?),
-        None => None,
-    };
+    // The summaries and the tornado's rank correlations side by side.
+    let (summaries, rank_corr) = rayon::join(
+        || -> Result<(Summary, Option<Summary>)> {
+            let summary = summarize_with(&in_place, &pool)?;
+            let recoverable_summary = match &recoverable {
+                Some(r) => Some(summarize_with(r, &pool)?),
+                None => None,
+            };
+            Ok((summary, recoverable_summary))
+        },
+        || {
+            // Spearman of each input with the volume over the first `n_rank` trials: the
+            // volume is ranked once; a correlated input's ranks follow from those of its
+            // re-pairing.
+            let vol_ranks = ranks(&in_place[..n_rank]);
+            (0..6)
+                .into_par_iter()
+                .map(|j| {
+                    let x = &cols[j][..n_rank];
+                    let r = if known_ranks[j].len() == n_rank && x.iter().any(|&v| v != x[0]) {
+                        ranks_from_global(&known_ranks[j], trials)
+                    } else {
+                        ranks(x)
+                    };
+                    rank_correlation(&r, &vol_ranks)
+                })
+                .collect::<Vec<f64>>()
+        },
+    );
+    let (summary, recoverable_summary) = summaries?;
     // Tornado: each input at its P90/P10, the others at their P50 (the correlated inputs'
     // percentiles were read from their sorted samples before the re-pairing).
     let qs: Vec<[f64; 3]> = cols[..6]
@@ -1110,21 +1201,6 @@ pub fn probabilistic_in_place(
             let mut copy = c.clone();
             let p = percentiles(&mut copy, &TORNADO_Q).unwrap_or_else(|_| vec![f64::NAN; 3]);
             [p[0], p[1], p[2]]
-        })
-        .collect();
-    // Spearman of each input with the volume over the first `n_rank` trials: the volume is
-    // ranked once; a correlated input's ranks follow from those of its re-pairing.
-    let vol_ranks = ranks(&in_place[..n_rank]);
-    let rank_corr: Vec<f64> = (0..6)
-        .into_par_iter()
-        .map(|j| {
-            let x = &cols[j][..n_rank];
-            let r = if known_ranks[j].len() == n_rank && x.iter().any(|&v| v != x[0]) {
-                ranks_from_global(&known_ranks[j], trials)
-            } else {
-                ranks(x)
-            };
-            rank_correlation(&r, &vol_ranks)
         })
         .collect();
     let mut tornado: Vec<TornadoRow> = (0..6)
@@ -1209,7 +1285,36 @@ mod tests {
             for x in awkward(n, 7 + n as u64) {
                 let mut want: Vec<u32> = (0..n as u32).collect();
                 want.sort_by_key(|&i| (key32(x[i as usize]), i));
-                assert_eq!(key_order(&x), want);
+                let got: Vec<u32> = key_order_owned(x).into_iter().map(|p| p as u32).collect();
+                assert_eq!(got, want);
+            }
+        }
+    }
+
+    #[test]
+    fn ranks_from_global_match_ranking_again() {
+        // Ranks of the first m of n distinct values, from their ranks among all n.
+        for (n, m) in [(2, 1), (64, 64), (65, 10), (70_000, 30_000)] {
+            let mut rng = Rng::new(n as u64, 3, 0);
+            let x: Vec<f64> = (0..n).map(|_| rng.uniform()).collect();
+            let all = ranks(&x);
+            let global: Vec<u32> = all[..m].iter().map(|&r| r as u32).collect();
+            let want = if m > 1 { ranks(&x[..m]) } else { vec![0.0] };
+            assert_eq!(ranks_from_global(&global, n), want);
+        }
+    }
+
+    #[test]
+    fn split_sort_sorts() {
+        for n in [0, 5, 70_000, 200_000] {
+            let mut rng = Rng::new(n as u64, 4, 0);
+            let v: Vec<u64> = (0..n).map(|_| rng.next_u64() >> (n % 7)).collect();
+            for pivot in [0, 1 << 62, 1 << 63, u64::MAX] {
+                let mut got = v.clone();
+                split_sort(&mut got, pivot);
+                let mut want = v.clone();
+                want.sort_unstable();
+                assert_eq!(got, want);
             }
         }
     }
