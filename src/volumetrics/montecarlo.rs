@@ -652,16 +652,32 @@ fn iman_conover_impl(
             columns[j] = c;
         }
     }
-    // Sample correlation T of the scores (unit variance, zero mean by symmetry).
+    // Sample correlation T of the scores (unit variance, zero mean by symmetry): every pair's
+    // products summed in one pass over the columns, in fixed blocks (as `det_sum`).
+    let pairs: Vec<(usize, usize)> = (0..k).flat_map(|i| (0..i).map(move |j| (i, j))).collect();
+    let block = 1 << 15;
+    let parts: Vec<Vec<f64>> = (0..n.div_ceil(block))
+        .into_par_iter()
+        .map(|b| {
+            let r = b * block..((b + 1) * block).min(n);
+            let cs: Vec<&[f64]> = scores.iter().map(|c| &c[r.clone()]).collect();
+            let mut acc = vec![0.0; pairs.len()];
+            for t in 0..r.len() {
+                for (a, &(i, j)) in acc.iter_mut().zip(&pairs) {
+                    *a += cs[i][t] * cs[j][t];
+                }
+            }
+            acc
+        })
+        .collect();
     let mut t = vec![0.0; k * k];
     for i in 0..k {
         t[i * k + i] = 1.0;
-        for j in 0..i {
-            let (a, b) = (&scores[i], &scores[j]);
-            let c = det_sum(n, |r| r.map(|t| a[t] * b[t]).sum()) / n as f64;
-            t[i * k + j] = c;
-            t[j * k + i] = c;
-        }
+    }
+    for (p, &(i, j)) in pairs.iter().enumerate() {
+        let c = parts.iter().map(|a| a[p]).sum::<f64>() / n as f64;
+        t[i * k + j] = c;
+        t[j * k + i] = c;
     }
     // Pearson target of the normal scores for the requested Spearman correlation.
     let adjusted: Vec<f64> = target
@@ -690,20 +706,27 @@ fn iman_conover_impl(
             m[i * k + j] = s / q[j * k + j];
         }
     }
-    // S* columns from the highest down, in place (column j needs columns <= j); column 0
-    // keeps its scores (see above).
-    for j in (1..k).rev() {
-        let (head, tail) = scores.split_at_mut(j);
-        let col = &mut tail[0];
-        let mj = &m[j * k..j * k + j + 1];
-        col.par_iter_mut().enumerate().for_each(|(i, x)| {
-            let mut s = mj[j] * *x;
-            for (l, h) in head.iter().enumerate() {
-                s += mj[l] * h[i];
-            }
-            *x = s;
-        });
+    // S* = S M^T in place, one pass over the rows (in parallel blocks); within a row the
+    // columns go from the highest down, as column j needs the scores of columns <= j.
+    // Column 0 keeps its scores (see above).
+    let mut blocks: Vec<Vec<&mut [f64]>> = (0..n.div_ceil(block)).map(|_| Vec::new()).collect();
+    for col in scores.iter_mut() {
+        for (b, piece) in col.chunks_mut(block).enumerate() {
+            blocks[b].push(piece);
+        }
     }
+    blocks.into_par_iter().for_each(|mut cs| {
+        for t in 0..cs[0].len() {
+            for j in (1..k).rev() {
+                let mj = &m[j * k..j * k + j + 1];
+                let mut s = mj[j] * cs[j][t];
+                for (l, &ml) in mj[..j].iter().enumerate() {
+                    s += ml * cs[l][t];
+                }
+                cs[j][t] = s;
+            }
+        }
+    });
     // Place each column's sorted samples in the rank order of its scores (column 0 is
     // placed already); the rank of each of the first `keep` trials is noted on the way. The
     // scores' memory holds the packed sort keys; the placed column takes a spare vector.
