@@ -662,6 +662,8 @@ fn iman_conover_impl(
             let r = b * block..((b + 1) * block).min(n);
             let cs: Vec<&[f64]> = scores.iter().map(|c| &c[r.clone()]).collect();
             let mut acc = vec![0.0; pairs.len()];
+            // `t` is the row: it indexes every column.
+            #[allow(clippy::needless_range_loop)]
             for t in 0..r.len() {
                 for (a, &(i, j)) in acc.iter_mut().zip(&pairs) {
                     *a += cs[i][t] * cs[j][t];
