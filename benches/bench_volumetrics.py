@@ -10,6 +10,7 @@ and a ~2x slower state.
 Usage: python benches/bench_volumetrics.py [trials] [rounds]
 """
 
+import os
 import sys
 import time
 
@@ -90,6 +91,8 @@ def numpy_run(n, seed):
 def main():
     n = int(sys.argv[1]) if len(sys.argv) > 1 else 1_000_000
     rounds = int(sys.argv[2]) if len(sys.argv) > 2 else 7
+    threads = os.environ.get("RAYON_NUM_THREADS", "all")
+    print(f"load average (1 min) at start {os.getloadavg()[0]:.2f}; stocktank threads: {threads} of {os.cpu_count()} cores")
     stocktank_run(1000, 0)
     numpy_run(1000, 0)
     ratios, ts, tn = [], [], []
@@ -110,6 +113,7 @@ def main():
         f"{n:,} trials, six correlated inputs: stocktank median {np.median(ts):.3f} s, "
         f"numpy median {np.median(tn):.3f} s, median ratio {np.median(ratios):.2f}x (target >= 5x, < 1 s)"
     )
+    print(f"load average (1 min) at end {os.getloadavg()[0]:.2f}")
 
 
 if __name__ == "__main__":

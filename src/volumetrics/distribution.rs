@@ -713,7 +713,7 @@ impl Distribution {
     pub fn sample_sorted(&self, n: usize, seed: u64, stream: u64) -> Vec<f64> {
         let s = Sampler::new(self);
         if s.inv(0.5).is_none() {
-            return super::montecarlo::sort_values(&self.sample(n, seed, stream));
+            return super::montecarlo::sort_values(self.sample(n, seed, stream));
         }
         // n + 1 exponential spacings, then their running sum.
         let mut e = vec![0.0; n + 1];

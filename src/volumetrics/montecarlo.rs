@@ -10,8 +10,8 @@
 //! 1. Each input is sampled independently from its [`Distribution`] (reproducible by seed).
 //! 2. Inputs that take part in a correlation are re-paired by Iman and Conover (1982): van
 //!    der Waerden scores Phi^-1(i/(n+1)), permuted independently per input (scatter shuffle
-//!    of Rao 1961 and Sandelius 1962 with Fisher–Yates inside each bucket; uniform up to the
-//!    index draws' bias below n / 2^64), are transformed
+//!    of Rao 1961 and Sandelius 1962 with Fisher–Yates inside each bucket and Lemire's exact
+//!    index draws: every permutation equally likely), are transformed
 //!    by `P Q^-1` (Cholesky factors of the target and of the scores' sample correlation) and
 //!    each input's sorted samples are placed in the rank order of its transformed scores
 //!    (the first input needs no ranking, as its transformed
@@ -371,25 +371,66 @@ fn from_key64(k: u64) -> f64 {
     f64::from_bits(if k >> 63 == 1 { k & !(1 << 63) } else { !k })
 }
 
-/// A uniformly random permutation of `items` by the scatter shuffle: each item goes to one
-/// of about n / 2048 buckets drawn uniformly at random, then each bucket (small enough to
-/// stay in cache) is shuffled by Fisher–Yates (Durstenfeld 1964) with Lemire's (2019)
-/// multiply-shift index draw. Every permutation is equally likely (up to the index draws'
-/// bias below n / 2^64); unlike one Fisher–Yates pass over the whole array it touches
-/// memory in a few sequential streams.
+/// Uniform integer draws below a bound from 32-bit halves of the generator's words:
+/// Lemire's (2019) multiply-shift with his rejection step, so every value is exactly equally
+/// likely; two draws per 64-bit word.
+struct Below32<'a> {
+    rng: &'a mut Rng,
+    word: u64,
+    spare: bool,
+}
+
+impl<'a> Below32<'a> {
+    fn new(rng: &'a mut Rng) -> Self {
+        Below32 {
+            rng,
+            word: 0,
+            spare: false,
+        }
+    }
+
+    #[inline]
+    fn bits(&mut self) -> u32 {
+        if self.spare {
+            self.spare = false;
+            (self.word >> 32) as u32
+        } else {
+            self.word = self.rng.next_u64();
+            self.spare = true;
+            self.word as u32
+        }
+    }
+
+    /// A uniform integer in `0..m`, 1 <= m <= 2^32 - 1.
+    #[inline]
+    fn below(&mut self, m: u32) -> u32 {
+        let mut x = self.bits() as u64 * m as u64;
+        if (x as u32) < m {
+            let t = m.wrapping_neg() % m;
+            while (x as u32) < t {
+                x = self.bits() as u64 * m as u64;
+            }
+        }
+        (x >> 32) as u32
+    }
+}
+
+/// One uniformly random permutation applied to each of the `L` equally long slices, by the
+/// scatter shuffle: each position goes to one of about n / 2048 buckets drawn uniformly at
+/// random, then each bucket (small enough to stay in cache) is shuffled by Fisher–Yates
+/// (Durstenfeld 1964). Index draws are exact (Lemire 2019, with rejection), so every
+/// permutation is equally likely; unlike one Fisher–Yates pass over the whole array it
+/// touches memory in a few sequential streams.
 ///
 /// # References
 /// Rao, C.R. (1961). Generation of random permutations of given number of elements using
 /// random sampling numbers. Sankhya A 23, 305–307; Sandelius, M. (1962). A simple
 /// randomization procedure. J. Royal Statistical Society B 24(2), 472–481 (from memory).
-fn scatter_shuffle<T: Copy + Default>(
-    items: impl ExactSizeIterator<Item = T> + Clone,
-    rng: &mut Rng,
-) -> Vec<T> {
-    let n = items.len();
+fn scatter_shuffle<const L: usize>(src: [&[f64]; L], rng: &mut Rng) -> [Vec<f64>; L] {
+    let n = src.first().map_or(0, |s| s.len());
     let nb = bucket_count(n);
-    let draw = |rng: &mut Rng, m: usize| ((rng.next_u64() as u128 * m as u128) >> 64) as usize;
-    let b: Vec<u16> = (0..n).map(|_| draw(rng, nb) as u16).collect();
+    let mut draw = Below32::new(rng);
+    let b: Vec<u16> = (0..n).map(|_| draw.below(nb as u32) as u16).collect();
     let mut next = vec![0usize; nb];
     for &k in &b {
         next[k as usize] += 1;
@@ -400,17 +441,22 @@ fn scatter_shuffle<T: Copy + Default>(
         *e = acc;
         acc += c;
     }
-    let mut out = vec![T::default(); n];
-    for (&k, v) in b.iter().zip(items) {
+    // Zeroed by the allocator (fresh pages), then every element is overwritten.
+    let mut out: [Vec<f64>; L] = std::array::from_fn(|_| vec![0.0; n]);
+    for (t, &k) in b.iter().enumerate() {
         let slot = &mut next[k as usize];
-        out[*slot] = v;
+        for (o, s) in out.iter_mut().zip(&src) {
+            o[*slot] = s[t];
+        }
         *slot += 1;
     }
     let mut start = 0;
     for &stop in &next {
-        let bucket = &mut out[start..stop];
-        for i in (1..bucket.len()).rev() {
-            bucket.swap(i, draw(rng, i + 1));
+        for i in (1..stop - start).rev() {
+            let j = draw.below(i as u32 + 1) as usize;
+            for o in out.iter_mut() {
+                o.swap(start + i, start + j);
+            }
         }
         start = stop;
     }
@@ -422,23 +468,85 @@ fn bucket_count(n: usize) -> usize {
     (n / 2048).clamp(1, u16::MAX as usize)
 }
 
-/// Argsort of `x` by its 32-bit keys (ties, at f32 resolution, by index): one sort of
-/// packed `key << 32 | index` words.
-fn key_order(x: &[f64]) -> Vec<u32> {
+/// The packed words `key32 << 32 | index` of `x` in ascending order (an argsort by 32-bit
+/// keys, ties by index, in the low 32 bits), sorted in the memory of `x`.
+fn key_order_owned(x: Vec<f64>) -> Vec<u64> {
     let mut packed: Vec<u64> = x
-        .iter()
+        .into_iter()
         .enumerate()
-        .map(|(i, &v)| ((key32(v) as u64) << 32) | i as u64)
+        .map(|(i, v)| ((key32(v) as u64) << 32) | i as u64)
         .collect();
-    packed.sort_unstable();
-    packed.into_iter().map(|v| v as u32).collect()
+    // Scores are symmetric about 0: split there (one pass) so that two threads can sort
+    // the halves of each column (any split is correct; this one is balanced).
+    split_sort(&mut packed, (key32(0.0) as u64) << 32);
+    packed
 }
 
-/// Sort f64 values exactly (NaN last), through their order-preserving integer keys.
-pub(crate) fn sort_values(x: &[f64]) -> Vec<f64> {
-    let mut k: Vec<u64> = x.iter().map(|&v| key64(v)).collect();
+/// Sort `v`: partition around `pivot` (one pass), then sort the two sides in parallel.
+fn split_sort(v: &mut [u64], pivot: u64) {
+    if v.len() < 1 << 16 {
+        v.sort_unstable();
+        return;
+    }
+    let (mut i, mut j) = (0, v.len());
+    loop {
+        while i < j && v[i] < pivot {
+            i += 1;
+        }
+        while i < j && v[j - 1] >= pivot {
+            j -= 1;
+        }
+        if i >= j {
+            break;
+        }
+        v.swap(i, j - 1);
+        i += 1;
+        j -= 1;
+    }
+    let (lo, hi) = v.split_at_mut(i);
+    rayon::join(|| lo.sort_unstable(), || hi.sort_unstable());
+}
+
+/// Sort f64 values exactly (NaN last), through their order-preserving integer keys (which
+/// reuse the vector's memory).
+pub(crate) fn sort_values(x: Vec<f64>) -> Vec<f64> {
+    let mut k: Vec<u64> = x.into_iter().map(key64).collect();
     k.sort_unstable();
     k.into_iter().map(from_key64).collect()
+}
+
+/// Spare vectors of n f64 handed from one step of a run to the next. Large vectors are
+/// returned to the system when freed, and fresh pages cost a fault and a zeroing per 4 KiB
+/// (measured: filling 16 MB of fresh memory took 3 to 10 times as long as a pass over warm
+/// memory on the development machine), so a step that frees a column lends it to a later step. Contents are unspecified;
+/// every taker overwrites all n values, so results do not depend on which vector it gets.
+struct Pool {
+    n: usize,
+    free: std::sync::Mutex<Vec<Vec<f64>>>,
+}
+
+impl Pool {
+    fn new(n: usize) -> Self {
+        Pool {
+            n,
+            free: std::sync::Mutex::new(Vec::new()),
+        }
+    }
+
+    /// A vector of length n (spare if any, else fresh).
+    fn take(&self) -> Vec<f64> {
+        let spare = self.free.lock().ok().and_then(|mut f| f.pop());
+        spare.unwrap_or_else(|| vec![0.0; self.n])
+    }
+
+    /// Lend a vector back (kept only if it has length n).
+    fn give(&self, v: Vec<f64>) {
+        if v.len() == self.n {
+            if let Ok(mut f) = self.free.lock() {
+                f.push(v);
+            }
+        }
+    }
 }
 
 /// Re-pair the columns in place so that their rank correlation approaches `target`
@@ -469,16 +577,22 @@ pub(crate) fn sort_values(x: &[f64]) -> Vec<f64> {
 /// # References
 /// Iman, R.L., Conover, W.J. (1982). Commun. Statist. Simula. Computa. 11(3), 311–334.
 pub fn iman_conover(columns: &mut [Vec<f64>], target: &Correlation, seed: u64) -> Result<()> {
-    iman_conover_impl(columns, target, seed, false)
+    let n = columns.first().map_or(0, |c| c.len());
+    iman_conover_impl(columns, target, seed, false, 0, &Pool::new(n)).map(|_| ())
 }
 
 /// [`iman_conover`]; `presorted` promises that every column is already in ascending order.
+/// Returns, for every column but the first, the rank (0-based, within the whole column) of
+/// the samples of trials `0..keep_ranks` after the re-pairing (empty vectors when
+/// `keep_ranks` is 0 and for the first column). Vectors it frees go to `pool`.
 fn iman_conover_impl(
     columns: &mut [Vec<f64>],
     target: &Correlation,
     seed: u64,
     presorted: bool,
-) -> Result<()> {
+    keep_ranks: usize,
+    pool: &Pool,
+) -> Result<Vec<Vec<u32>>> {
     let k = columns.len();
     if k != target.k {
         return Err(Error::Shape(format!(
@@ -487,7 +601,7 @@ fn iman_conover_impl(
         )));
     }
     if k == 0 {
-        return Ok(());
+        return Ok(Vec::new());
     }
     let n = columns[0].len();
     if columns.iter().any(|c| c.len() != n) {
@@ -496,7 +610,7 @@ fn iman_conover_impl(
         ));
     }
     if n < 2 {
-        return Ok(());
+        return Ok(vec![Vec::new(); k]);
     }
     // Van der Waerden scores, then an independent random permutation per column.
     let mut base: Vec<f64> = (0..n)
@@ -509,46 +623,63 @@ fn iman_conover_impl(
     if !presorted {
         columns
             .par_iter_mut()
-            .for_each(|col| *col = sort_values(col));
+            .for_each(|col| *col = sort_values(std::mem::take(col)));
     }
     // One uniformly random permutation of the scores per column (scatter shuffle). Column
     // 0's transformed scores are a positive multiple of its own (M is lower triangular), so
     // its sorted samples simply travel with its scores through the same permutation: no
     // ranking for it.
-    let mut scores: Vec<Vec<f64>> = Vec::with_capacity(k);
     let col0 = std::mem::take(&mut columns[0]);
     let shuffled: Vec<(Vec<f64>, Option<Vec<f64>>)> = (0..k)
         .into_par_iter()
         .map(|j| {
             let mut rng = Rng::new(seed, 0x1C_0000 + j as u64, 0);
             if j == 0 {
-                let pairs =
-                    scatter_shuffle(base.iter().copied().zip(col0.iter().copied()), &mut rng);
-                let (s, c): (Vec<f64>, Vec<f64>) = pairs.into_iter().unzip();
+                let [s, c] = scatter_shuffle([&base, &col0], &mut rng);
                 (s, Some(c))
             } else {
-                (scatter_shuffle(base.iter().copied(), &mut rng), None)
+                let [s] = scatter_shuffle([&base], &mut rng);
+                (s, None)
             }
         })
         .collect();
-    drop(base);
-    drop(col0);
+    pool.give(base);
+    pool.give(col0);
+    let mut scores: Vec<Vec<f64>> = Vec::with_capacity(k);
     for (j, (s, c)) in shuffled.into_iter().enumerate() {
         scores.push(s);
         if let Some(c) = c {
             columns[j] = c;
         }
     }
-    // Sample correlation T of the scores (unit variance, zero mean by symmetry).
+    // Sample correlation T of the scores (unit variance, zero mean by symmetry): every pair's
+    // products summed in one pass over the columns, in fixed blocks (as `det_sum`).
+    let pairs: Vec<(usize, usize)> = (0..k).flat_map(|i| (0..i).map(move |j| (i, j))).collect();
+    let block = 1 << 15;
+    let parts: Vec<Vec<f64>> = (0..n.div_ceil(block))
+        .into_par_iter()
+        .map(|b| {
+            let r = b * block..((b + 1) * block).min(n);
+            let cs: Vec<&[f64]> = scores.iter().map(|c| &c[r.clone()]).collect();
+            let mut acc = vec![0.0; pairs.len()];
+            // `t` is the row: it indexes every column.
+            #[allow(clippy::needless_range_loop)]
+            for t in 0..r.len() {
+                for (a, &(i, j)) in acc.iter_mut().zip(&pairs) {
+                    *a += cs[i][t] * cs[j][t];
+                }
+            }
+            acc
+        })
+        .collect();
     let mut t = vec![0.0; k * k];
     for i in 0..k {
         t[i * k + i] = 1.0;
-        for j in 0..i {
-            let (a, b) = (&scores[i], &scores[j]);
-            let c = det_sum(n, |r| r.map(|t| a[t] * b[t]).sum()) / n as f64;
-            t[i * k + j] = c;
-            t[j * k + i] = c;
-        }
+    }
+    for (p, &(i, j)) in pairs.iter().enumerate() {
+        let c = parts.iter().map(|a| a[p]).sum::<f64>() / n as f64;
+        t[i * k + j] = c;
+        t[j * k + i] = c;
     }
     // Pearson target of the normal scores for the requested Spearman correlation.
     let adjusted: Vec<f64> = target
@@ -577,33 +708,54 @@ fn iman_conover_impl(
             m[i * k + j] = s / q[j * k + j];
         }
     }
-    // S* columns from the highest down, in place (column j needs columns <= j); column 0
-    // keeps its scores (see above).
-    for j in (1..k).rev() {
-        let (head, tail) = scores.split_at_mut(j);
-        let col = &mut tail[0];
-        let mj = &m[j * k..j * k + j + 1];
-        col.par_iter_mut().enumerate().for_each(|(i, x)| {
-            let mut s = mj[j] * *x;
-            for (l, h) in head.iter().enumerate() {
-                s += mj[l] * h[i];
-            }
-            *x = s;
-        });
+    // S* = S M^T in place, one pass over the rows (in parallel blocks); within a row the
+    // columns go from the highest down, as column j needs the scores of columns <= j.
+    // Column 0 keeps its scores (see above).
+    let mut blocks: Vec<Vec<&mut [f64]>> = (0..n.div_ceil(block)).map(|_| Vec::new()).collect();
+    for col in scores.iter_mut() {
+        for (b, piece) in col.chunks_mut(block).enumerate() {
+            blocks[b].push(piece);
+        }
     }
+    blocks.into_par_iter().for_each(|mut cs| {
+        for t in 0..cs[0].len() {
+            for j in (1..k).rev() {
+                let mj = &m[j * k..j * k + j + 1];
+                let mut s = mj[j] * cs[j][t];
+                for (l, &ml) in mj[..j].iter().enumerate() {
+                    s += ml * cs[l][t];
+                }
+                cs[j][t] = s;
+            }
+        }
+    });
     // Place each column's sorted samples in the rank order of its scores (column 0 is
-    // placed already).
+    // placed already); the rank of each of the first `keep` trials is noted on the way. The
+    // scores' memory holds the packed sort keys; the placed column takes a spare vector.
+    let keep = keep_ranks.min(n);
+    let s0 = scores.remove(0);
+    pool.give(s0);
+    let mut kept: Vec<Vec<u32>> = vec![Vec::new(); k];
     columns[1..]
         .par_iter_mut()
-        .zip(scores[1..].par_iter())
-        .for_each(|(col, s)| {
-            let sorted = std::mem::take(col);
-            col.resize(n, 0.0);
-            for (r, &i) in key_order(s).iter().enumerate() {
-                col[i as usize] = sorted[r];
+        .zip(scores.into_par_iter())
+        .zip(kept[1..].par_iter_mut())
+        .for_each(|((col, s), kept)| {
+            let order = key_order_owned(s);
+            let sorted = std::mem::replace(col, pool.take());
+            if keep > 0 {
+                kept.resize(keep, 0);
             }
+            for (r, &p) in order.iter().enumerate() {
+                let i = p as u32 as usize;
+                col[i] = sorted[r];
+                if i < keep {
+                    kept[i] = r as u32;
+                }
+            }
+            pool.give(sorted);
         });
-    Ok(())
+    Ok(kept)
 }
 
 /// Spearman rank correlation of two equally long samples (ties ranked arbitrarily); NaN when
@@ -626,16 +778,47 @@ pub fn spearman(a: &[f64], b: &[f64]) -> f64 {
     rank_correlation(&ranks(&a[..n]), &ranks(&b[..n]))
 }
 
-/// Ranks 0..n of a sample (ties, at f32 resolution, ranked by position); empty when the sample is constant.
+/// Ranks 0..n of a sample (exact order; equal values ranked by position); empty when the
+/// sample is constant.
 fn ranks(x: &[f64]) -> Vec<f64> {
     if x.iter().all(|&v| v == x[0]) {
         return Vec::new();
     }
+    let mut keyed: Vec<(u64, u32)> = x
+        .iter()
+        .enumerate()
+        .map(|(i, &v)| (key64(v), i as u32))
+        .collect();
+    keyed.sort_unstable();
     let mut r = vec![0.0; x.len()];
-    for (k, &i) in key_order(x).iter().enumerate() {
+    for (k, &(_, i)) in keyed.iter().enumerate() {
         r[i as usize] = k as f64;
     }
     r
+}
+
+/// Ranks 0..m of the first m trials among themselves, from their ranks `global` (distinct,
+/// each < n) within all n trials: a bit per global rank, then each rank's position among the
+/// set bits. The same order as ranking the m values again, in O(n / 64 + m).
+fn ranks_from_global(global: &[u32], n: usize) -> Vec<f64> {
+    let mut bits = vec![0u64; n.div_ceil(64)];
+    for &g in global {
+        bits[g as usize / 64] |= 1 << (g % 64);
+    }
+    let mut below = Vec::with_capacity(bits.len());
+    let mut acc = 0u32;
+    for &w in &bits {
+        below.push(acc);
+        acc += w.count_ones();
+    }
+    global
+        .iter()
+        .map(|&g| {
+            let (w, b) = (g as usize / 64, g % 64);
+            let under = bits[w] & ((1u64 << b) - 1);
+            (below[w] + under.count_ones()) as f64
+        })
+        .collect()
 }
 
 /// Pearson correlation of two rank vectors of equal length (NaN if either is empty).
@@ -775,12 +958,20 @@ pub struct Summary {
 /// assert_eq!(s.p50, 3.0);
 /// ```
 pub fn summarize(data: &[f64]) -> Result<Summary> {
+    summarize_with(data, &Pool::new(data.len()))
+}
+
+/// [`summarize`] with its scratch copy of `data` taken from (and returned to) `pool`.
+fn summarize_with(data: &[f64], pool: &Pool) -> Result<Summary> {
     if let Some(i) = data.iter().position(|x| x.is_nan()) {
         return Err(Error::invalid("data", f64::NAN, "sample holds NaN").at_index(&[i]));
     }
     let n = data.len();
-    let mut copy = data.to_vec();
-    let p = percentiles(&mut copy, &[0.1, 0.5, 0.9])?;
+    let mut copy = pool.take();
+    copy.copy_from_slice(data);
+    let p = percentiles(&mut copy, &[0.1, 0.5, 0.9]);
+    pool.give(copy);
+    let p = p?;
     let mean = det_sum(n, |r| r.map(|t| data[t]).sum()) / n as f64;
     let var = if n > 1 {
         det_sum(n, |r| r.map(|t| (data[t] - mean) * (data[t] - mean)).sum()) / (n - 1) as f64
@@ -954,7 +1145,11 @@ pub fn probabilistic_in_place(
                 .then(|| TORNADO_Q.map(|q| quantile_sorted(&cols[j], q)))
         })
         .collect();
-    // Correlate the inputs that take part in a correlation.
+    // Correlate the inputs that take part in a correlation; keep the ranks of the tornado's
+    // first `n_rank` trials that the re-pairing finds anyway.
+    let n_rank = trials.min(200_000);
+    let pool = Pool::new(trials);
+    let mut known_ranks: Vec<Vec<u32>> = vec![Vec::new(); k];
     if let Some(c) = correlation {
         if !active.is_empty() {
             let m = active.len();
@@ -969,28 +1164,57 @@ pub fn probabilistic_in_place(
                 .iter()
                 .map(|&i| std::mem::take(&mut cols[i]))
                 .collect();
-            iman_conover_impl(&mut taken, &sub, seed ^ 0x005E_ED1C, true)?;
-            for (&i, col) in active.iter().zip(taken) {
+            let kept =
+                iman_conover_impl(&mut taken, &sub, seed ^ 0x005E_ED1C, true, n_rank, &pool)?;
+            for ((&i, col), kept) in active.iter().zip(taken).zip(kept) {
                 cols[i] = col;
+                known_ranks[i] = kept;
             }
         }
     }
-    let in_place: Vec<f64> = (0..trials)
-        .into_par_iter()
-        .map(|t| volume(fluid, std::array::from_fn(|j| cols[j][t])))
-        .collect();
+    let mut in_place = pool.take();
+    in_place
+        .par_iter_mut()
+        .enumerate()
+        .for_each(|(t, v)| *v = volume(fluid, std::array::from_fn(|j| cols[j][t])));
     let recoverable = inputs.recovery_factor.map(|_| {
-        in_place
-            .par_iter()
+        let mut r = pool.take();
+        r.par_iter_mut()
+            .zip(in_place.par_iter())
             .zip(cols[Input::RecoveryFactor.index()].par_iter())
-            .map(|(v, rf)| v * rf)
-            .collect::<Vec<f64>>()
+            .for_each(|((r, v), rf)| *r = v * rf);
+        r
     });
-    let summary = summarize(&in_place)?;
-    let recoverable_summary = match &recoverable {
-        Some(r) => Some(summarize(r)?),
-        None => None,
-    };
+    // The summaries and the tornado's rank correlations side by side.
+    let (summaries, rank_corr) = rayon::join(
+        || -> Result<(Summary, Option<Summary>)> {
+            let summary = summarize_with(&in_place, &pool)?;
+            let recoverable_summary = match &recoverable {
+                Some(r) => Some(summarize_with(r, &pool)?),
+                None => None,
+            };
+            Ok((summary, recoverable_summary))
+        },
+        || {
+            // Spearman of each input with the volume over the first `n_rank` trials: the
+            // volume is ranked once; a correlated input's ranks follow from those of its
+            // re-pairing.
+            let vol_ranks = ranks(&in_place[..n_rank]);
+            (0..6)
+                .into_par_iter()
+                .map(|j| {
+                    let x = &cols[j][..n_rank];
+                    let r = if known_ranks[j].len() == n_rank && x.iter().any(|&v| v != x[0]) {
+                        ranks_from_global(&known_ranks[j], trials)
+                    } else {
+                        ranks(x)
+                    };
+                    rank_correlation(&r, &vol_ranks)
+                })
+                .collect::<Vec<f64>>()
+        },
+    );
+    let (summary, recoverable_summary) = summaries?;
     // Tornado: each input at its P90/P10, the others at their P50 (the correlated inputs'
     // percentiles were read from their sorted samples before the re-pairing).
     let qs: Vec<[f64; 3]> = cols[..6]
@@ -1004,12 +1228,6 @@ pub fn probabilistic_in_place(
             let p = percentiles(&mut copy, &TORNADO_Q).unwrap_or_else(|_| vec![f64::NAN; 3]);
             [p[0], p[1], p[2]]
         })
-        .collect();
-    let sub = trials.min(200_000);
-    let vol_ranks = ranks(&in_place[..sub]);
-    let rank_corr: Vec<f64> = (0..6)
-        .into_par_iter()
-        .map(|j| rank_correlation(&ranks(&cols[j][..sub]), &vol_ranks))
         .collect();
     let mut tornado: Vec<TornadoRow> = (0..6)
         .map(|j| {
@@ -1076,7 +1294,7 @@ mod tests {
             for x in awkward(n, n as u64) {
                 let mut want = x.clone();
                 want.sort_by(|a, b| a.total_cmp(b));
-                let got = sort_values(&x);
+                let got = sort_values(x.clone());
                 assert!(
                     got.iter()
                         .zip(&want)
@@ -1093,7 +1311,36 @@ mod tests {
             for x in awkward(n, 7 + n as u64) {
                 let mut want: Vec<u32> = (0..n as u32).collect();
                 want.sort_by_key(|&i| (key32(x[i as usize]), i));
-                assert_eq!(key_order(&x), want);
+                let got: Vec<u32> = key_order_owned(x).into_iter().map(|p| p as u32).collect();
+                assert_eq!(got, want);
+            }
+        }
+    }
+
+    #[test]
+    fn ranks_from_global_match_ranking_again() {
+        // Ranks of the first m of n distinct values, from their ranks among all n.
+        for (n, m) in [(2, 1), (64, 64), (65, 10), (70_000, 30_000)] {
+            let mut rng = Rng::new(n as u64, 3, 0);
+            let x: Vec<f64> = (0..n).map(|_| rng.uniform()).collect();
+            let all = ranks(&x);
+            let global: Vec<u32> = all[..m].iter().map(|&r| r as u32).collect();
+            let want = if m > 1 { ranks(&x[..m]) } else { vec![0.0] };
+            assert_eq!(ranks_from_global(&global, n), want);
+        }
+    }
+
+    #[test]
+    fn split_sort_sorts() {
+        for n in [0, 5, 70_000, 200_000] {
+            let mut rng = Rng::new(n as u64, 4, 0);
+            let v: Vec<u64> = (0..n).map(|_| rng.next_u64() >> (n % 7)).collect();
+            for pivot in [0, 1 << 62, 1 << 63, u64::MAX] {
+                let mut got = v.clone();
+                split_sort(&mut got, pivot);
+                let mut want = v.clone();
+                want.sort_unstable();
+                assert_eq!(got, want);
             }
         }
     }
@@ -1104,15 +1351,19 @@ mod tests {
         // (chi-square with 7 degrees of freedom; 24.3 is its 0.999 quantile, scipy.stats.chi2).
         let n = 10_000;
         let mut hits = [0usize; 8];
+        let items: Vec<f64> = (0..n).map(|i| i as f64).collect();
+        let twice: Vec<f64> = items.iter().map(|v| 2.0 * v).collect();
         for s in 0..2000 {
             let mut rng = Rng::new(s, 1, 0);
-            let p = scatter_shuffle(0..n as u32, &mut rng);
+            let [p, p2] = scatter_shuffle([&items, &twice], &mut rng);
             if s == 0 {
+                // The same permutation of both slices.
+                assert!(p.iter().zip(&p2).all(|(a, b)| 2.0 * a == *b));
                 let mut q = p.clone();
-                q.sort_unstable();
-                assert!(q.iter().enumerate().all(|(i, &v)| v as usize == i));
+                q.sort_by(f64::total_cmp);
+                assert_eq!(q, items);
             }
-            let at = p.iter().position(|&v| v == 0).unwrap();
+            let at = p.iter().position(|&v| v == 0.0).unwrap();
             hits[at * 8 / n] += 1;
         }
         let e = 2000.0 / 8.0;

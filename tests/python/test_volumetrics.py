@@ -181,6 +181,17 @@ def test_tornado_and_recoverable():
     assert r["recoverable_summary"]["p50"] == pytest.approx(np.median(r["recoverable"]))
 
 
+def test_tornado_rank_correlation_is_scipy_spearman_on_first_200k():
+    # scipy.stats.spearmanr on the first 200,000 trials, for correlated inputs (ranks taken
+    # from the re-pairing) and independent ones (ranked again) alike.
+    corr = {("porosity", "sw"): -0.6, ("area", "thickness"): 0.4, ("sw", "fvf"): 0.2}
+    r = st.probabilistic_in_place("oil", **inputs(), correlation=corr, trials=250_000, seed=8)
+    m = 200_000
+    for row in r["tornado"]:
+        want = stats.spearmanr(r["inputs"][row["input"]][:m], r["in_place"][:m]).statistic
+        assert row["rank_correlation"] == pytest.approx(want, abs=1e-12)
+
+
 def test_distribution_class_behaviour():
     d = D.normal(0.2, 0.03, low=0.0, high=0.4)
     assert pickle.loads(pickle.dumps(d)) == d
