@@ -292,6 +292,52 @@ pub fn pow_positive_scalar(x: f64, y: f64) -> f64 {
     exp_scalar(y * ln_scalar(x))
 }
 
+/// The exponential and logarithm a prepared correlation is evaluated with: the one formula
+/// of each correlation is written once, generic over this choice, and instantiated twice --
+/// with [`System`] where values come one at a time (the scalar kernels), with [`Lanes`]
+/// inside loops over whole columns that the compiler vectorises (the black-oil table
+/// builder). The two give the same values to a few units in the last place (see the module
+/// docs).
+pub(crate) trait Elementary {
+    /// e^x.
+    fn exp(x: f64) -> f64;
+    /// ln x.
+    fn ln(x: f64) -> f64;
+    /// x^y = exp(y ln x) for a positive base.
+    #[inline(always)]
+    fn pow_positive(x: f64, y: f64) -> f64 {
+        Self::exp(y * Self::ln(x))
+    }
+}
+
+/// [`exp_scalar`] / [`ln_scalar`]: the system library, one value at a time.
+pub(crate) struct System;
+
+impl Elementary for System {
+    #[inline(always)]
+    fn exp(x: f64) -> f64 {
+        exp_scalar(x)
+    }
+    #[inline(always)]
+    fn ln(x: f64) -> f64 {
+        ln_scalar(x)
+    }
+}
+
+/// [`exp`] / [`ln`]: branch-free, for loops over lanes.
+pub(crate) struct Lanes;
+
+impl Elementary for Lanes {
+    #[inline(always)]
+    fn exp(x: f64) -> f64 {
+        exp(x)
+    }
+    #[inline(always)]
+    fn ln(x: f64) -> f64 {
+        ln(x)
+    }
+}
+
 #[cfg(test)]
 mod tests {
     #[test]

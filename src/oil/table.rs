@@ -81,9 +81,12 @@
 //! the same correlations this bounds scalar code at a few times faster, not 20 times; more
 //! needs wider SIMD than the x86-64 baseline the crate is built for.
 
-use super::fluid::{Oil, OilModel};
-use super::fvf::{OilDensity, apparent_compressibility, oil_density, total_fvf};
-use super::sg_from_api;
+use super::fluid::{Oil, OilModel, StandingForms};
+use super::fvf::{
+    OilDensity, apparent_compressibility, apparent_compressibility_unchecked, oil_density,
+    total_fvf, total_fvf_unchecked,
+};
+use super::{CoMethod, sg_from_api};
 use crate::array::OnError;
 use crate::error::{Error, Result};
 use crate::fastmath;
@@ -91,7 +94,7 @@ use crate::gas::{
     Gas, GasIsothermVolumetrics, LeeGonzalezEakin, ViscosityMethod as GasViscosityMethod,
 };
 use crate::units::FT3_PER_BBL;
-use crate::water::Water;
+use crate::water::{Water, WaterIsotherm};
 use rayon::prelude::*;
 
 /// Column names (as in files and DataFrames) and units, in table order.
@@ -265,10 +268,13 @@ struct Scratch {
 /// Fill the 13 columns of one table in place ([`COLUMNS`] order; `cols[0]`, the pressures
 /// with Pb at row `pb_index`, is already written). Returns the apparent co just below Pb.
 ///
-/// The one evaluation loop behind [`BlackOilTable::build_with`] and [`build_long_results`]:
+/// The one evaluation behind [`BlackOilTable::build_with`] and [`build_long_results`]:
 /// everything that depends on the fluid only (the oil model's prepared correlations, the
-/// gas isotherm, the gas viscosity's temperature terms, the water's standard-condition
-/// divisor) is set up once; per pressure it pays only the pressure-dependent terms.
+/// gas isotherm, the gas viscosity's temperature terms, the water's isotherm) is set up once.
+/// With the default correlation set the columns are then computed column by column
+/// ([`fill_columns`]); any other set, or a table whose values leave the ranges where the
+/// column forms hold, goes row by row through the checked methods ([`fill_rows`]), which
+/// also report the error of a bad value.
 fn fill(
     model: &OilModel,
     gas: &Gas,
@@ -276,6 +282,299 @@ fn fill(
     pb_index: usize,
     cols: &mut [&mut [f64]; 13],
     scratch: &mut Scratch,
+) -> Result<f64> {
+    let t = model.oil.temperature_f;
+    gas.isotherm(t)
+        .z_column_into(cols[0], &mut scratch.ppr, &mut scratch.z);
+    if fill_columns(model, gas, water, pb_index, cols, &scratch.z) {
+        // The bubble-point row (both branches meet there) and the apparent co just below it.
+        fill_rows(
+            model,
+            gas,
+            water,
+            pb_index,
+            cols,
+            &scratch.z,
+            pb_index..pb_index + 1,
+        )
+    } else {
+        let n = cols[0].len();
+        fill_rows(model, gas, water, pb_index, cols, &scratch.z, 0..n)
+    }
+}
+
+/// The prepared per-table forms the column kernel evaluates.
+struct ColumnForms<'a> {
+    oil: StandingForms<'a>,
+    model: &'a OilModel,
+    lge: LeeGonzalezEakin,
+    gas_pv: GasIsothermVolumetrics,
+    water: WaterIsotherm,
+    rho_o: OilDensity,
+}
+
+/// The column-wise evaluation of one table with the default correlation set (Standing Rs
+/// and Bo, a valid undersaturated co coefficient, Lee–Gonzalez–Eakin gas viscosity): each
+/// quantity is a straight loop over the rows below Pb, over the rows above it, or over all
+/// rows, with the branch-free exponential and logarithm ([`fastmath::Lanes`]) so that the
+/// compiler vectorises it (AVX2 when the processor has it, [`crate::simd`]). Every value
+/// comes from the same prepared form as the checked row path (to a few units in the last
+/// place: the two exponentials differ by that).
+///
+/// Returns `false`, leaving the columns to [`fill_rows`], when the set is not the default
+/// one or when some value is outside the conditions under which the checked path would
+/// return it without an error (a failed or non-positive Z, Rs < 0, Standing's group F <= 0,
+/// a non-positive or non-finite Bo, Bw or water viscosity).
+fn fill_columns(
+    model: &OilModel,
+    gas: &Gas,
+    water: &Water,
+    pb_index: usize,
+    cols: &mut [&mut [f64]; 13],
+    z_col: &[Result<f64>],
+) -> bool {
+    let oil = &model.oil;
+    let t = oil.temperature_f;
+    let Some(standing) = model.standing_forms() else {
+        return false;
+    };
+    if gas.viscosity_method() != GasViscosityMethod::LeeGonzalezEakin
+        || !(oil.gas_sg > 0.0 && oil.api > 0.0)
+    {
+        return false;
+    }
+    let (Ok(lge), Ok(gas_pv), Ok(water_t), Ok(oil_sg)) = (
+        LeeGonzalezEakin::new(t, gas.molar_mass()),
+        GasIsothermVolumetrics::new(t, gas.gas_sg(), &oil.standard_conditions),
+        water.isotherm(t),
+        sg_from_api(oil.api),
+    ) else {
+        return false;
+    };
+    for (zi, r) in cols[7].iter_mut().zip(z_col) {
+        match r {
+            Ok(z) if *z > 0.0 && z.is_finite() => *zi = *z,
+            _ => return false,
+        }
+    }
+    let forms = ColumnForms {
+        oil: standing,
+        model,
+        lge,
+        gas_pv,
+        water: water_t,
+        rho_o: OilDensity::new(oil_sg, oil.gas_sg, &oil.standard_conditions),
+    };
+    columns_kernel(&forms, pb_index, cols)
+}
+
+crate::simd::multiversion! {
+    fn columns_kernel(forms: &ColumnForms<'_>, pb_index: usize, cols: &mut [&mut [f64]; 13]) -> bool => columns_body
+}
+
+/// Lanes per step of the column kernel: one AVX2 register of f64. A table has only a few
+/// dozen rows on each side of Pb, so the loops run over fixed-size lane arrays (the
+/// compiler turns each lane loop into straight vector code) rather than over the columns
+/// themselves (whose vectorised loops would leave most of a short column to their scalar
+/// remainder). Measured with `examples/profile_black_oil.rs`.
+const LANES: usize = 8;
+
+/// Lanes `s..s + m` of the column `c` (`m` <= [`LANES`]), the missing lanes set to `fill`.
+#[inline(always)]
+fn load(c: &[f64], s: usize, m: usize, fill: f64) -> [f64; LANES] {
+    let mut a = [fill; LANES];
+    if m == LANES {
+        a.copy_from_slice(&c[s..s + LANES]);
+    } else {
+        for l in 0..m {
+            a[l] = c[s + l];
+        }
+    }
+    a
+}
+
+/// Store the first `m` lanes of `v` into `c[s..s + m]`.
+#[inline(always)]
+fn store(c: &mut [f64], s: usize, m: usize, v: &[f64; LANES]) {
+    if m == LANES {
+        c[s..s + LANES].copy_from_slice(v);
+    } else {
+        for l in 0..m {
+            c[s + l] = v[l];
+        }
+    }
+}
+
+/// The loops of [`fill_columns`]; returns whether every value met the conditions. Each
+/// range of rows goes [`LANES`] rows per step; in a last, partial step the missing lanes
+/// repeat the step's first pressure (a valid input: they compute valid values, dropped).
+#[inline(always)]
+fn columns_body(f: &ColumnForms<'_>, k: usize, cols: &mut [&mut [f64]; 13]) -> bool {
+    type M = fastmath::Lanes;
+    let [
+        p,
+        rs_c,
+        bo_c,
+        co_c,
+        rho_o_c,
+        mu_o_c,
+        bg_c,
+        z_c,
+        mu_g_c,
+        rho_g_c,
+        bw_c,
+        mu_w_c,
+        bt_c,
+    ] = cols;
+    let p: &[f64] = p;
+    let n = p.len();
+    let rsi = f.model.rsi;
+    let mut ok = [true; LANES];
+    // Gas, every row: the real-gas law and Lee–Gonzalez–Eakin.
+    let mut s = 0;
+    while s < n {
+        let m = LANES.min(n - s);
+        let pl = load(p, s, m, p[s]);
+        let z = load(z_c, s, m, 1.0);
+        let mut bg = [0.0; LANES];
+        let mut rho = [0.0; LANES];
+        let mut mu = [0.0; LANES];
+        for l in 0..LANES {
+            bg[l] = f.gas_pv.bg(pl[l], z[l]);
+            rho[l] = f.gas_pv.density(pl[l], z[l]);
+            mu[l] = f.lge.at_checked_density_with::<M>(rho[l]);
+        }
+        store(bg_c, s, m, &bg);
+        store(rho_g_c, s, m, &rho);
+        store(mu_g_c, s, m, &mu);
+        s += m;
+    }
+    // Water, every row.
+    f.water.bw_column(p, bw_c);
+    f.water.viscosity_column(p, mu_w_c);
+    for (b, mu) in bw_c.iter().zip(mu_w_c.iter()) {
+        ok[0] &= (*b > 0.0) & (*mu > 0.0);
+    }
+    // Oil below Pb, along the saturated curve.
+    let (below, above) = (k.min(n), (k + 1).min(n));
+    let mut s = 0;
+    while s < below {
+        let m = LANES.min(below - s);
+        let pl = load(p, s, m, p[s]);
+        let bg = load(bg_c, s, m, 1.0);
+        // One short loop per quantity: each is turned into straight vector code.
+        let [mut rs, mut bo, mut co, mut rho, mut mu, mut bt] = [[0.0; LANES]; 6];
+        for l in 0..LANES {
+            rs[l] = f.oil.rs::<M>(pl[l]);
+        }
+        for l in 0..LANES {
+            bo[l] = f.oil.bo::<M>(rs[l]);
+        }
+        for l in 0..LANES {
+            mu[l] = f.oil.viscosity::<M>(rs[l]);
+        }
+        for l in 0..LANES {
+            let (r, b) = (rs[l], bo[l]);
+            let (drs, dbo) = f.oil.slopes(pl[l], r, b);
+            let bg_rb = bg[l] / FT3_PER_BBL;
+            ok[l] &= (r >= 0.0) & (f.oil.group(r) > 0.0) & (b > 0.0) & (b < f64::INFINITY);
+            co[l] = apparent_compressibility_unchecked(b, dbo, bg_rb, drs);
+            rho[l] = f.rho_o.at(r, b);
+            bt[l] = total_fvf_unchecked(b, bg_rb, rsi, r);
+        }
+        store(rs_c, s, m, &rs);
+        store(bo_c, s, m, &bo);
+        store(co_c, s, m, &co);
+        store(rho_o_c, s, m, &rho);
+        store(mu_o_c, s, m, &mu);
+        store(bt_c, s, m, &bt);
+        s += m;
+    }
+    // Oil above Pb: Rs = Rsi, one logarithm of p for Bo and viscosity (the co method as a
+    // constant in each copy of the loop).
+    let oil_cols = [
+        &mut **rs_c,
+        &mut **bo_c,
+        &mut **co_c,
+        &mut **rho_o_c,
+        &mut **mu_o_c,
+        &mut **bt_c,
+    ];
+    let ok_above = match f.model.oil.methods.co {
+        CoMethod::VasquezBeggs => {
+            above_pb_rows(f, CoMethod::VasquezBeggs, p, above, bg_c, oil_cols)
+        }
+        CoMethod::PetroskyFarshad => {
+            above_pb_rows(f, CoMethod::PetroskyFarshad, p, above, bg_c, oil_cols)
+        }
+    };
+    ok.iter().chain(&ok_above).all(|&o| o)
+}
+
+/// The rows of one table above Pb (from row `above` on) for the co method `co`: the
+/// oil columns `[rs, bo, co, oil_density, oil_viscosity, bt]`; returns the lane flags of
+/// the conditions (as [`columns_body`]).
+#[inline(always)]
+fn above_pb_rows(
+    f: &ColumnForms<'_>,
+    method: CoMethod,
+    p: &[f64],
+    above: usize,
+    bg_c: &[f64],
+    oil_cols: [&mut [f64]; 6],
+) -> [bool; LANES] {
+    type M = fastmath::Lanes;
+    let [rs_c, bo_c, co_c, rho_o_c, mu_o_c, bt_c] = oil_cols;
+    let n = p.len();
+    let rsi = f.model.rsi;
+    let mut ok = [true; LANES];
+    let mut s = above;
+    while s < n {
+        let m = LANES.min(n - s);
+        let pl = load(p, s, m, p[s]);
+        let bg = load(bg_c, s, m, 1.0);
+        let rs = [rsi; LANES];
+        let [mut bo, mut co, mut rho, mut mu, mut bt] = [[0.0; LANES]; 5];
+        let mut ln_p = [0.0; LANES];
+        for l in 0..LANES {
+            ln_p[l] = <M as fastmath::Elementary>::ln(pl[l]);
+        }
+        for l in 0..LANES {
+            bo[l] = f.model.bo_above_pb_with::<M>(method, ln_p[l]);
+        }
+        for l in 0..LANES {
+            mu[l] = f.model.viscosity_above_pb_with::<M>(pl[l], ln_p[l]);
+        }
+        for l in 0..LANES {
+            let b = bo[l];
+            ok[l] &= (b > 0.0) & (b < f64::INFINITY);
+            co[l] = f.model.co_above_pb_with::<M>(method, pl[l]);
+            rho[l] = f.rho_o.at(rsi, b);
+            bt[l] = total_fvf_unchecked(b, bg[l] / FT3_PER_BBL, rsi, rsi);
+        }
+        store(rs_c, s, m, &rs);
+        store(bo_c, s, m, &bo);
+        store(co_c, s, m, &co);
+        store(rho_o_c, s, m, &rho);
+        store(mu_o_c, s, m, &mu);
+        store(bt_c, s, m, &bt);
+        s += m;
+    }
+    ok
+}
+
+/// The checked row-by-row evaluation of rows `rows` of one table (see [`fill`]): every
+/// correlation through its checked method, so that a bad value stops with the error that
+/// names it. Returns the apparent co just below Pb (NaN when `pb_index` is not in `rows`).
+#[allow(clippy::too_many_arguments)]
+fn fill_rows(
+    model: &OilModel,
+    gas: &Gas,
+    water: &Water,
+    pb_index: usize,
+    cols: &mut [&mut [f64]; 13],
+    z_col: &[Result<f64>],
+    rows: std::ops::Range<usize>,
 ) -> Result<f64> {
     let oil = &model.oil;
     let t = oil.temperature_f;
@@ -298,8 +597,6 @@ fn fill(
     ] = cols;
     let p: &[f64] = p;
     // Temperature-only parts of the gas correlations, once per table.
-    gas.isotherm(t)
-        .z_column_into(p, &mut scratch.ppr, &mut scratch.z);
     let lge = match gas.viscosity_method() {
         GasViscosityMethod::LeeGonzalezEakin => Some(LeeGonzalezEakin::new(t, gas.molar_mass())?),
         _ => None,
@@ -315,8 +612,9 @@ fn fill(
         let (drs, dbo) = model.saturated_slopes(q, rs, bo)?;
         apparent_compressibility(bo, dbo, bg_rb, drs)
     };
-    for (i, &pi) in p.iter().enumerate() {
-        let z = match &scratch.z[i] {
+    for i in rows {
+        let pi = p[i];
+        let z = match &z_col[i] {
             Ok(z) => *z,
             Err(e) => return Err(e.clone()),
         };
