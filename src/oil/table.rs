@@ -1370,6 +1370,100 @@ mod tests {
         );
     }
 
+    /// The column kernel against the checked row path on the same tables: every column
+    /// within 1e-13 relative (co below Pb, a difference of two terms, within 1e-13 of its
+    /// table's largest |co|), over random oils inside Standing's (1947) ranges with and
+    /// without calibration, both co methods, and grids with Pb inside, below and above.
+    #[test]
+    fn columns_agree_with_the_checked_rows() {
+        use crate::oil::{Calibration, CoMethod, Methods};
+        let mut state = 0x2545_f491_4f6c_dd1d_u64;
+        let mut next = move || {
+            state ^= state << 13;
+            state ^= state >> 7;
+            state ^= state << 17;
+            (state >> 11) as f64 / (1u64 << 53) as f64
+        };
+        let mut worst = [0.0f64; 13];
+        let mut tables = 0;
+        for case in 0..600 {
+            let mut oil = Oil::new(
+                16.5 + 47.0 * next(),
+                0.59 + 0.36 * next(),
+                20.0 + 1400.0 * next(),
+                100.0 + 158.0 * next(),
+            )
+            .unwrap();
+            if case % 3 == 1 {
+                let pb = oil.model().unwrap().pb * (0.8 + 0.4 * next());
+                oil = oil
+                    .with_measured_bubble_point(pb)
+                    .unwrap()
+                    .with_calibration(Calibration {
+                        bob: Some(oil.model().unwrap().report.bob * (1.0 + 0.05 * next())),
+                        mu_ob_cp: Some(0.3 + 2.0 * next()),
+                    })
+                    .unwrap();
+            }
+            if case % 2 == 1 {
+                oil = oil.with_methods(Methods {
+                    co: CoMethod::PetroskyFarshad,
+                    ..Methods::default()
+                });
+            }
+            let Ok(model) = oil.model() else { continue };
+            let (gas, water) = oil.gas_and_water().unwrap();
+            let top = [3000.0, 7000.0, 12000.0][case % 3];
+            let grid: Vec<f64> = (0..37)
+                .map(|i| 15.0 + (top - 15.0) * i as f64 / 36.0)
+                .collect();
+            let slot = pb_slot(&grid, model.pb);
+            let n = grid.len() + usize::from(!slot.1);
+            let mut a: [Vec<f64>; 13] = std::array::from_fn(|_| vec![0.0; n]);
+            write_grid(&grid, model.pb, slot, &mut a[0]);
+            let mut b = a.clone();
+            let mut scratch = Scratch::default();
+            gas.isotherm(oil.temperature_f)
+                .z_column_into(&a[0], &mut scratch.ppr, &mut scratch.z);
+            let mut ca = a.each_mut().map(|v| v.as_mut_slice());
+            if !fill_columns(&model, &gas, &water, slot.0, &mut ca, &scratch.z) {
+                continue;
+            }
+            let co_a = fill_rows(
+                &model,
+                &gas,
+                &water,
+                slot.0,
+                &mut ca,
+                &scratch.z,
+                slot.0..slot.0 + 1,
+            );
+            let mut cb = b.each_mut().map(|v| v.as_mut_slice());
+            let co_b = fill_rows(&model, &gas, &water, slot.0, &mut cb, &scratch.z, 0..n);
+            assert_eq!(co_a.unwrap().to_bits(), co_b.unwrap().to_bits());
+            tables += 1;
+            for j in 0..13 {
+                let scale = a[j].iter().fold(0.0f64, |m, x| m.max(x.abs()));
+                for i in 0..n {
+                    let (x, y) = (a[j][i], b[j][i]);
+                    let d = if j == 3 && i < slot.0 {
+                        (x - y).abs() / scale
+                    } else {
+                        ((x - y) / y).abs()
+                    };
+                    worst[j] = worst[j].max(d);
+                    assert!(
+                        d <= 1e-13,
+                        "case {case}, {} row {i}: {x} vs {y}",
+                        COLUMNS[j].0
+                    );
+                }
+            }
+        }
+        assert!(tables > 300, "{tables}");
+        eprintln!("largest relative difference columns vs rows: {worst:?}");
+    }
+
     #[test]
     fn bad_grid_names_row() {
         let e = check_grid(&[1.0, 3.0, 2.0]).unwrap_err();
