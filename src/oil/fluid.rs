@@ -860,13 +860,11 @@ impl OilModel {
     /// exactly Bob at the initial GOR.
     #[inline(always)]
     fn calibrated_bo(&self, rs: f64, b: f64) -> f64 {
-        // Both sides first, then a select (no branch in a column loop).
+        // Both sides loaded and computed first, then a select: a load inside the branch
+        // could not be speculated, and the branch would keep a column loop scalar.
+        let (bob, rsi) = (self.report.bob, self.rsi);
         let scaled = 1.0 + self.report.bo_scale * (b - 1.0);
-        if rs == self.rsi {
-            self.report.bob
-        } else {
-            scaled
-        }
+        if rs == rsi { bob } else { scaled }
     }
 
     /// The correlation's Bo behind a calibrated `bo` (the inverse of the shrinkage scale).
@@ -879,12 +877,9 @@ impl OilModel {
     /// k_mu, exactly the Pb value at the initial GOR.
     #[inline(always)]
     fn calibrated_viscosity(&self, rs: f64, mu: f64) -> f64 {
+        let (mu_ob, rsi) = (self.report.mu_ob_cp, self.rsi);
         let scaled = self.report.mu_scale * mu;
-        if rs == self.rsi {
-            self.report.mu_ob_cp
-        } else {
-            scaled
-        }
+        if rs == rsi { mu_ob } else { scaled }
     }
 
     /// dRs/dp (scf/STB/psi) of the calibrated saturated curve at `p` given its `rs`, for
@@ -931,18 +926,24 @@ impl StandingForms<'_> {
         self.rs.at_with::<M>(p / m.report.pb_scale).min(m.rsi)
     }
 
-    /// Standing's correlating group F at `rs`: [`StandingForms::bo`] and
+    /// Standing's correlating group F at `rs`: [`StandingForms::bo_correlation`] and
     /// [`StandingForms::slopes`] hold where it is > 0 (as the checked forms require).
     #[inline(always)]
     pub(crate) fn group(&self, rs: f64) -> f64 {
         self.bo.group(rs)
     }
 
-    /// [`OilModel::bo_saturated`] at `rs` (>= 0 with F > 0), rb/STB.
+    /// Standing's Bo at `rs` (F > 0) before calibration, rb/STB: with
+    /// [`StandingForms::calibrated_bo`], [`OilModel::bo_saturated`] at `rs`.
     #[inline(always)]
-    pub(crate) fn bo<M: fastmath::Elementary>(&self, rs: f64) -> f64 {
-        self.model
-            .calibrated_bo(rs, self.bo.at_group_with::<M>(self.bo.group(rs)))
+    pub(crate) fn bo_correlation<M: fastmath::Elementary>(&self, rs: f64) -> f64 {
+        self.bo.at_group_with::<M>(self.bo.group(rs))
+    }
+
+    /// The calibration of a saturated Bo `b` (rb/STB) of the correlation at `rs`.
+    #[inline(always)]
+    pub(crate) fn calibrated_bo(&self, rs: f64, b: f64) -> f64 {
+        self.model.calibrated_bo(rs, b)
     }
 
     /// [`OilModel::saturated_slopes`] at `p` < Pb with its `rs` and `bo` (F > 0):
@@ -956,11 +957,17 @@ impl StandingForms<'_> {
         (drs, m.report.bo_scale * dbo_drs * drs)
     }
 
-    /// [`OilModel::viscosity_saturated`] at `rs` (finite, >= 0), cp.
+    /// Beggs–Robinson's (1975) live-oil viscosity at `rs` before calibration, cp: with
+    /// [`StandingForms::calibrated_viscosity`], [`OilModel::viscosity_saturated`] at `rs`.
     #[inline(always)]
-    pub(crate) fn viscosity<M: fastmath::Elementary>(&self, rs: f64) -> f64 {
-        let m = self.model;
-        m.calibrated_viscosity(rs, m.hoisted.live.at_with::<M>(rs))
+    pub(crate) fn viscosity_correlation<M: fastmath::Elementary>(&self, rs: f64) -> f64 {
+        self.model.hoisted.live.at_with::<M>(rs)
+    }
+
+    /// The calibration of a live-oil viscosity `mu` (cp) of the correlation at `rs`.
+    #[inline(always)]
+    pub(crate) fn calibrated_viscosity(&self, rs: f64, mu: f64) -> f64 {
+        self.model.calibrated_viscosity(rs, mu)
     }
 }
 

@@ -467,11 +467,17 @@ fn columns_body(f: &ColumnForms<'_>, k: usize, cols: &mut [&mut [f64]; 13]) -> b
         for l in 0..LANES {
             rs[l] = f.oil.rs::<M>(pl[l]);
         }
+        // The correlations, then their calibration (a select that keeps its loop scalar;
+        // cheap without the exponentials).
         for l in 0..LANES {
-            bo[l] = f.oil.bo::<M>(rs[l]);
+            bo[l] = f.oil.bo_correlation::<M>(rs[l]);
         }
         for l in 0..LANES {
-            mu[l] = f.oil.viscosity::<M>(rs[l]);
+            mu[l] = f.oil.viscosity_correlation::<M>(rs[l]);
+        }
+        for l in 0..LANES {
+            bo[l] = f.oil.calibrated_bo(rs[l], bo[l]);
+            mu[l] = f.oil.calibrated_viscosity(rs[l], mu[l]);
         }
         for l in 0..LANES {
             let (r, b) = (rs[l], bo[l]);
@@ -962,12 +968,31 @@ fn check_columns(c: &TableRef<'_>) -> Vec<Violation> {
         &c.water_viscosity,
         &c.bt,
     ];
-    let all_good = [&c.rs, &c.co]
-        .iter()
-        .all(|c| c.iter().all(|x| x.is_finite()))
-        && positive_columns
-            .iter()
-            .all(|c| c.iter().all(|&x| x.is_finite() && x > 0.0));
+    // Branch-free folds (they vectorise): all values good, and no rule broken, the common
+    // case, return at once; the row loop below (the same tests, in the same order) runs only
+    // to describe what some row breaks.
+    let finite = |c: &[f64]| c.iter().fold(true, |ok, x| ok & x.is_finite());
+    let positive = |c: &[f64]| {
+        c.iter()
+            .fold(true, |ok, &x| ok & (x > 0.0) & (x < f64::INFINITY))
+    };
+    let all_good = [&c.rs, &c.co].iter().fold(true, |ok, c| ok & finite(c))
+        & positive_columns.iter().fold(true, |ok, c| ok & positive(c));
+    let k = c.pb_index.min(n);
+    let mut broken = !(c.co_below_pb > 0.0);
+    broken |= c.co[..k].iter().fold(false, |b, &x| b | (x <= 0.0));
+    for i in 1..(k + 1).min(n) {
+        let bg_rb = 0.5 * (c.bg[i] + c.bg[i - 1]) / FT3_PER_BBL;
+        let gas = bg_rb * (c.rs[i] - c.rs[i - 1]);
+        let oil = c.bo[i] - c.bo[i - 1];
+        broken |= gas <= oil;
+    }
+    for i in (k + 1).max(1)..n {
+        broken |= (c.bo[i] >= c.bo[i - 1]) | (c.oil_density[i] <= c.oil_density[i - 1]);
+    }
+    if all_good && !broken {
+        return v;
+    }
     for i in 0..n {
         if !all_good {
             let vals = [
