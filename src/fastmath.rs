@@ -5,6 +5,11 @@
 //! FMA versions are faster: scalar code calls [`exp_scalar`] / [`ln_scalar`] (measured in
 //! `examples/profile_black_oil.rs`, see [`exp_scalar`]).
 //!
+//! A prepared correlation that runs both ways is written once, generic over the pair
+//! (`Elementary`, crate-internal): instantiated with the system library for the scalar
+//! kernels and with [`exp`] / [`ln`] inside the lane loops of the black-oil table builder,
+//! where the AVX2 copy of the loop computes four rows per instruction.
+//!
 //! Most published PVT correlations are power laws, `a x^b`; written as `exp(b ln x)` with
 //! the per-fluid parts hoisted out of the pressure loop they cost one [`ln`] and one [`exp`]
 //! per point. [`pow_positive`] and [`pow_positive_scalar`] are that form for a positive base.

@@ -60,26 +60,34 @@
 //! `co_method = petrosky_farshad` (always positive) are the usual remedies.
 //!
 //! # Speed
-//! One evaluation loop fills every table: what depends on the fluid only (the oil model's
-//! prepared correlations, the Dranchuk–Abou-Kassem isotherm, the gas viscosity's temperature
-//! terms, the Bg and density factors, the water's standard-condition divisor) is set up once
-//! per fluid; per pressure, each power law costs one logarithm and one exponential
-//! ([`crate::fastmath::ln_scalar`], [`crate::fastmath::exp_scalar`]: one value at a time the
-//! system library's FMA versions beat the branch-free [`crate::fastmath::exp`] built for the
-//! baseline target). [`build_long_results`] allocates the long columns once, fills
-//! each fluid's rows in place (in parallel over fluids, with per-thread scratch buffers) and
-//! checks them while they are in cache; no table is allocated or copied. The results are
-//! those of the earlier power-function forms to a few 1e-15 relative; `co` below Pb, a
-//! difference of two terms, differs by up to about 1e-15 of its well's largest value.
+//! What depends on the fluid only (the oil model's prepared correlations, the
+//! Dranchuk–Abou-Kassem isotherm, the gas viscosity's temperature terms, the Bg and density
+//! factors, the water's isotherm) is set up once per fluid. With the default correlation set
+//! (Standing Pb/Rs and Bo, Vasquez–Beggs or Petrosky–Farshad co, Beggs–Robinson viscosity,
+//! Lee–Gonzalez–Eakin gas viscosity) a table is then filled column by column: each quantity
+//! is a loop over fixed-size lane arrays (8 rows per step) of the rows below Pb, of the rows
+//! above it or of all rows, with the branch-free [`crate::fastmath::exp`] /
+//! [`crate::fastmath::ln`], compiled a second time for AVX2 + FMA and chosen at run time
+//! ([`crate::simd`]); each power law costs one logarithm and one exponential per row, and
+//! the formulas are those of the scalar kernels (the prepared forms are generic over the
+//! exponential and logarithm). The Pb row, other correlation sets and any table whose
+//! values leave the conditions under which the checked methods return them without an
+//! error go row by row through the checked methods, which name the bad value. The two
+//! paths agree to 2.3e-15 relative in every column (unit test). [`build_long_results`]
+//! allocates the long columns once, fills each fluid's rows in place (in parallel over
+//! fluids, with per-thread scratch buffers) and checks them while they are in cache (by
+//! branch-free folds; the row-by-row description of a violation only where one exists).
 //!
-//! Floor (measured with `benches/bench_blackoil.py` and `perf` on the project's 2-core
-//! machine, 10,000 tables of 50 pressures): per row below Pb the default correlations need 13
-//! transcendental evaluations (Rs, Bo: ln + exp each; Beggs–Robinson live viscosity: 2 ln +
-//! 2 exp; Lee–Gonzalez–Eakin: ln + 2 exp; the Z solve: 2 exp), about a third of the time,
-//! and every row writes 13 new f64 values plus its well index and Pb flag (113 bytes of fresh
-//! memory, whose page faults are a further 10-25 %). Against the numpy-vectorised version of
-//! the same correlations this bounds scalar code at a few times faster, not 20 times; more
-//! needs wider SIMD than the x86-64 baseline the crate is built for.
+//! Measured (`benches/bench_blackoil.py`, 10,000 tables of 50 pressures, one core, on the
+//! project's 2-core machine under a load average of 5 to 7, i.e. its slow state): 4.2x
+//! the numpy-vectorised version of the same correlations (2.8x before the column kernel,
+//! same load), 85x numpy called once per well. `perf` of
+//! `examples/profile_black_oil.rs` (build only, one thread) puts the column kernel at about
+//! 20 % of the time, the Dranchuk–Abou-Kassem isotherm at 12 %, the check and glue at
+//! 10 %, and the operating system at 45 %: page faults, zeroing and unmapping of the fresh
+//! long columns (113 bytes per row: 13 f64 values, the well index and the Pb flag). That
+//! memory traffic, not the arithmetic, is now the floor; 20x the numpy version (about 65 ns
+//! per row) is out of reach while every call hands out newly allocated arrays.
 
 use super::fluid::{Oil, OilModel, StandingForms};
 use super::fvf::{
@@ -386,9 +394,7 @@ fn load(c: &[f64], s: usize, m: usize, fill: f64) -> [f64; LANES] {
     if m == LANES {
         a.copy_from_slice(&c[s..s + LANES]);
     } else {
-        for l in 0..m {
-            a[l] = c[s + l];
-        }
+        a[..m].copy_from_slice(&c[s..s + m]);
     }
     a
 }
@@ -399,9 +405,7 @@ fn store(c: &mut [f64], s: usize, m: usize, v: &[f64; LANES]) {
     if m == LANES {
         c[s..s + LANES].copy_from_slice(v);
     } else {
-        for l in 0..m {
-            c[s + l] = v[l];
-        }
+        c[s..s + m].copy_from_slice(&v[..m]);
     }
 }
 
@@ -979,7 +983,7 @@ fn check_columns(c: &TableRef<'_>) -> Vec<Violation> {
     let all_good = [&c.rs, &c.co].iter().fold(true, |ok, c| ok & finite(c))
         & positive_columns.iter().fold(true, |ok, c| ok & positive(c));
     let k = c.pb_index.min(n);
-    let mut broken = !(c.co_below_pb > 0.0);
+    let mut broken = c.co_below_pb.is_nan() || c.co_below_pb <= 0.0;
     broken |= c.co[..k].iter().fold(false, |b, &x| b | (x <= 0.0));
     for i in 1..(k + 1).min(n) {
         let bg_rb = 0.5 * (c.bg[i] + c.bg[i - 1]) / FT3_PER_BBL;
