@@ -403,6 +403,10 @@ where
             } else {
                 for (x, src) in xs.iter_mut().zip(&sources) {
                     match src {
+                        // A full batch is a fixed-size copy (vector moves, no memcpy call).
+                        Source::Direct(d) if m == BATCH => {
+                            x.copy_from_slice(&d[flat..flat + BATCH]);
+                        }
                         Source::Direct(d) => x[..m].copy_from_slice(&d[flat..flat + m]),
                         _ => *x = [src.get(flat, &multi); BATCH],
                     }
@@ -414,6 +418,16 @@ where
             }
             let mut ys = [0.0; BATCH];
             let done = batch(&xs, &mut ys);
+            // The common case: every lane final and no NaN input.
+            let mut clean = m == BATCH;
+            for l in 0..BATCH {
+                clean &= done[l] & xs.iter().all(|x| !x[l].is_nan());
+            }
+            if clean {
+                chunk[k0..k0 + BATCH].copy_from_slice(&ys);
+                k0 += BATCH;
+                continue;
+            }
             for j in 0..m {
                 let x: [f64; N] = std::array::from_fn(|i| xs[i][j]);
                 chunk[k0 + j] = if x.iter().any(|v| v.is_nan()) {

@@ -366,7 +366,7 @@ fn history_match_round_trip_exact_and_noisy() {
     let fit = history_match(&pvt(), &h, &reservoir(), &opts).unwrap();
     assert!((fit.n / 4e7 - 1.0).abs() < 1e-5, "{fit:?}");
     assert!((fit.m - 0.25).abs() < 1e-4);
-    let a = fit.aquifer.unwrap();
+    let a = fit.report.aquifer.unwrap();
     assert!((a.constant / 250.0 - 1.0).abs() < 1e-4);
     match a.model {
         AquiferModel::VanEverdingenHurst { td_per_day, .. } => {
@@ -403,15 +403,15 @@ fn history_match_round_trip_exact_and_noisy() {
     let fit = history_match(&pvt(), &hn, &reservoir(), &opts).unwrap();
     println!(
         "{:?} {:?} {:?} {:?}",
-        fit.values, fit.ci_low, fit.ci_high, fit.status
+        fit.report.values, fit.report.ci_low, fit.report.ci_high, fit.report.status
     );
     assert!((fit.n / 4e7 - 1.0).abs() < 0.05, "N = {}", fit.n);
-    assert!(fit.ci_low[0] < fit.n && fit.n < fit.ci_high[0]);
+    assert!(fit.report.ci_low[0] < fit.n && fit.n < fit.report.ci_high[0]);
     assert!(
-        fit.ci_low[0] < 4e7 * 1.02 && 4e7 * 0.98 < fit.ci_high[0],
+        fit.report.ci_low[0] < 4e7 * 1.02 && 4e7 * 0.98 < fit.report.ci_high[0],
         "{:?} {:?}",
-        fit.ci_low,
-        fit.ci_high
+        fit.report.ci_low,
+        fit.report.ci_high
     );
 }
 
@@ -437,10 +437,15 @@ fn history_match_reports_why_n_m_and_aquifer_do_not_separate() {
         Ok(fit) => {
             println!(
                 "cond {:e}, warnings {:?}",
-                fit.condition_number, fit.warnings
+                fit.report.condition_number, fit.report.warnings
             );
-            assert!(fit.condition_number > CONDITION_WARNING);
-            assert!(fit.warnings.iter().any(|w| w.contains("correlated at")));
+            assert!(fit.report.condition_number > CONDITION_WARNING);
+            assert!(
+                fit.report
+                    .warnings
+                    .iter()
+                    .any(|w| w.contains("correlated at"))
+            );
         }
         Err(Error::Singular { detail, .. }) => {
             println!("{detail}");
@@ -462,18 +467,19 @@ fn history_match_reports_why_n_m_and_aquifer_do_not_separate() {
     .unwrap();
     println!(
         "m fixed: cond {:e}, warnings {:?}",
-        fit.condition_number, fit.warnings
+        fit.report.condition_number, fit.report.warnings
     );
     assert!((fit.n / 3e7 - 1.0).abs() < 1e-5);
     assert!(
-        fit.warnings
+        fit.report
+            .warnings
             .iter()
             .any(|w| w.contains("`n` and `aquifer_constant` are correlated"))
     );
     // A single parameter (N alone) has condition number 1 and no warnings.
     let h = synthetic(&t, &p, 3e7, 0.0, None);
     let fit = history_match(&pvt(), &h, &reservoir(), &HistoryMatchOptions::default()).unwrap();
-    assert!((fit.condition_number - 1.0).abs() < 1e-12 && fit.warnings.is_empty());
+    assert!((fit.report.condition_number - 1.0).abs() < 1e-12 && fit.report.warnings.is_empty());
 }
 
 #[test]
@@ -855,6 +861,7 @@ fn public_types_are_send_sync() {
     ok::<MbeTerms>();
     ok::<HavlenaOdehFit>();
     ok::<HistoryMatch>();
+    ok::<MatchReport>();
     ok::<Aquifer>();
     ok::<GasFit>();
     ok::<MuskatForecast>();

@@ -66,16 +66,16 @@ fn fetkovich_round_trip_exact() {
         ..Default::default()
     };
     let fit = gas_history_match(&table(), &h, &normal_res(), &opts).unwrap();
-    assert_eq!(fit.parameters[0], MatchParameter::G);
+    assert_eq!(fit.report.parameters[0], MatchParameter::G);
     assert!((fit.g / G - 1.0).abs() < 1e-5, "{fit:?}");
-    let a = fit.aquifer.unwrap();
+    let a = fit.report.aquifer.unwrap();
     assert!((a.constant / 2e4 - 1.0).abs() < 1e-4, "{a:?}");
     match a.model {
         AquiferModel::Fetkovich { tau_days } => assert!((tau_days / 400.0 - 1.0).abs() < 1e-4),
         m => panic!("{m:?}"),
     }
-    assert!(fit.rms < 1e-3, "{}", fit.rms);
-    assert!(!fit.used[0]);
+    assert!(fit.report.rms < 1e-3, "{}", fit.report.rms);
+    assert!(!fit.report.used[0]);
     // The withdrawal objective recovers the same exact answer.
     let w = gas_history_match(
         &table(),
@@ -111,7 +111,7 @@ fn veh_round_trip_with_pressure_noise() {
     };
     let fit = gas_history_match(&table(), &h, &normal_res(), &opts).unwrap();
     assert!((fit.g / G - 1.0).abs() < 1e-5, "{fit:?}");
-    let a = fit.aquifer.unwrap();
+    let a = fit.report.aquifer.unwrap();
     assert!((a.constant / 600.0 - 1.0).abs() < 1e-3, "{a:?}");
     // Noise on the measured pressures (deterministic pseudo-random, +-10 psi); the
     // production stays as generated.
@@ -129,19 +129,26 @@ fn veh_round_trip_with_pressure_noise() {
         .collect();
     let hn = GasHistory::new(t.clone(), pn, h.gp.clone(), h.wp.clone(), PI).unwrap();
     let fit = gas_history_match(&table(), &hn, &normal_res(), &opts).unwrap();
-    println!("{:?} {:?} {:?}", fit.values, fit.ci_low, fit.ci_high);
+    println!(
+        "{:?} {:?} {:?}",
+        fit.report.values, fit.report.ci_low, fit.report.ci_high
+    );
     // With +-10 psi noise the 95% interval of G is about +-7%: G within 10% and every
     // true parameter inside its interval.
     assert!((fit.g / G - 1.0).abs() < 0.10, "G = {}", fit.g);
     for (k, truth) in [G, 600.0, 0.05].iter().enumerate() {
         assert!(
-            fit.ci_low[k] < *truth && *truth < fit.ci_high[k],
+            fit.report.ci_low[k] < *truth && *truth < fit.report.ci_high[k],
             "{k}: {:?} {:?}",
-            fit.ci_low,
-            fit.ci_high
+            fit.report.ci_low,
+            fit.report.ci_high
         );
     }
-    assert!(fit.rms > 2.0 && fit.rms < 10.0, "rms {} psi", fit.rms);
+    assert!(
+        fit.report.rms > 2.0 && fit.report.rms < 10.0,
+        "rms {} psi",
+        fit.report.rms
+    );
 }
 
 #[test]
@@ -177,9 +184,12 @@ fn volumetric_and_abnormal_pressure() {
         .unwrap();
         println!(
             "{objective:?}: {:?} {:?} {:?}",
-            fit.values, fit.ci_low, fit.ci_high
+            fit.report.values, fit.report.ci_low, fit.report.ci_high
         );
-        assert_eq!(fit.parameters, vec![MatchParameter::G, MatchParameter::Ce]);
+        assert_eq!(
+            fit.report.parameters,
+            vec![MatchParameter::G, MatchParameter::Ce]
+        );
         assert!((fit.g / G - 1.0).abs() < 1e-5, "{}", fit.g);
         assert!(
             (fit.ce / ab.ce() - 1.0).abs() < 1e-4,
@@ -187,7 +197,7 @@ fn volumetric_and_abnormal_pressure() {
             fit.ce,
             ab.ce()
         );
-        assert!((fit.values[1] - fit.ce).abs() < 1e-18);
+        assert!((fit.report.values[1] - fit.ce).abs() < 1e-18);
     }
 }
 
@@ -210,19 +220,20 @@ fn correlated_parameters_are_reported() {
     let short = match gas_history_match(&table(), &h, &normal_res(), &opts) {
         Ok(fit) => {
             assert!(
-                fit.condition_number > CONDITION_WARNING,
+                fit.report.condition_number > CONDITION_WARNING,
                 "{}",
-                fit.condition_number
+                fit.report.condition_number
             );
             assert!(
-                fit.warnings
+                fit.report
+                    .warnings
                     .iter()
                     .any(|w| w.contains("`g` and `aquifer_constant`")),
                 "{:?}",
-                fit.warnings
+                fit.report.warnings
             );
-            assert!(fit.correlation[1].abs() > CORRELATION_WARNING);
-            fit.condition_number
+            assert!(fit.report.correlation[1].abs() > CORRELATION_WARNING);
+            fit.report.condition_number
         }
         Err(Error::Singular { detail, .. }) => {
             assert!(detail.contains("condition number"), "{detail}");
@@ -237,14 +248,14 @@ fn correlated_parameters_are_reported() {
     let fit = gas_history_match(&table(), &h, &normal_res(), &opts).unwrap();
     println!(
         "short {short:e}, long {:e}, {:?}",
-        fit.condition_number, fit.warnings
+        fit.report.condition_number, fit.report.warnings
     );
-    assert!(fit.condition_number < short / 10.0);
+    assert!(fit.report.condition_number < short / 10.0);
     assert!((fit.g / G - 1.0).abs() < 1e-6);
     // A volumetric reservoir has one parameter: condition number 1, no warnings.
     let h = synthetic(&t, &p, &normal_res(), None);
     let fit = gas_history_match(&table(), &h, &normal_res(), &GasMatchOptions::default()).unwrap();
-    assert!(fit.warnings.is_empty() && (fit.condition_number - 1.0).abs() < 1e-12);
+    assert!(fit.report.warnings.is_empty() && (fit.report.condition_number - 1.0).abs() < 1e-12);
 }
 
 #[test]

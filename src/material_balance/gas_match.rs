@@ -23,11 +23,11 @@
 //! - Ramagost, B.P., Farshad, F.F. (1981). P/Z abnormally pressured gas reservoirs. SPE 10125.
 //! - Levenberg, K. (1944); Marquardt, D.W. (1963); see [`super::history_match`].
 
-use super::aquifer::{Aquifer, AquiferModel};
+use super::aquifer::AquiferModel;
 use super::gas::gas_bg;
 use super::history::{check_cumulative, check_pressures, check_times};
 use super::history_match::{
-    CE_UNIT, HistoryMatchOptions, LmStatus, MatchParameter, Objective, Physics, check_options,
+    CE_UNIT, HistoryMatchOptions, MatchParameter, MatchReport, Objective, Physics, check_options,
     layout, run,
 };
 use super::oil::MbeTerms;
@@ -366,47 +366,14 @@ impl Default for GasMatchOptions {
 /// The result of a gas history match.
 #[derive(Debug, Clone, PartialEq)]
 pub struct GasHistoryMatch {
-    /// The fitted parameters, in order (G first).
-    pub parameters: Vec<MatchParameter>,
-    /// Their values.
-    pub values: Vec<f64>,
-    /// Their standard errors.
-    pub std_errors: Vec<f64>,
-    /// Lower confidence limits.
-    pub ci_low: Vec<f64>,
-    /// Upper confidence limits.
-    pub ci_high: Vec<f64>,
-    /// Correlation matrix of the parameters, row-major.
-    pub correlation: Vec<f64>,
     /// Gas in place G, scf.
     pub g: f64,
     /// Effective rock and water compressibility ce, 1/psi (fitted with `fit_ce`, else the
     /// reservoir's).
     pub ce: f64,
-    /// The matched aquifer (None without one).
-    pub aquifer: Option<Aquifer>,
-    /// Cumulative influx of the matched aquifer along the observed pressures, rb.
-    pub we: Vec<f64>,
-    /// Average pressure predicted by the matched model from the production, psia.
-    pub p_model: Vec<f64>,
-    /// Residual per row: observed minus predicted pressure (psi) or F - G Et - We (rb).
-    pub residuals: Vec<f64>,
-    /// Root-mean-square residual over the used rows (psi or rb).
-    pub rms: f64,
-    /// Rows used (the initial row without production is not).
-    pub used: Vec<bool>,
-    /// The objective minimised.
-    pub objective: Objective,
-    /// Levenberg–Marquardt iterations.
-    pub iterations: usize,
-    /// Evaluations of the model.
-    pub evaluations: usize,
-    /// How the (last) iteration ended.
-    pub status: LmStatus,
-    /// Condition number of the scaled J^T J at the solution.
-    pub condition_number: f64,
-    /// Plain-language warnings (ill-conditioning, strongly correlated parameters).
-    pub warnings: Vec<String>,
+    /// The regression: parameters (G first), their uncertainty, the matched model and
+    /// diagnostics.
+    pub report: MatchReport,
 }
 
 /// Match the gas in place G and the aquifer parameters of a gas reservoir to its history
@@ -480,30 +447,13 @@ pub fn gas_history_match(
         &opts,
     )?;
     Ok(GasHistoryMatch {
-        parameters: f.parameters,
-        values: f.values,
-        std_errors: f.std_errors,
-        ci_low: f.ci_low,
-        ci_high: f.ci_high,
-        correlation: f.correlation,
         g: f.n,
         ce: if options.fit_ce {
             f.m * CE_UNIT
         } else {
             reservoir.ce()
         },
-        aquifer: f.aquifer,
-        we: f.we,
-        p_model: f.p_model,
-        residuals: f.residuals,
-        rms: f.rms,
-        used: f.used,
-        objective: f.objective,
-        iterations: f.iterations,
-        evaluations: f.evaluations,
-        status: f.status,
-        condition_number: f.condition_number,
-        warnings: f.warnings,
+        report: f.report,
     })
 }
 

@@ -157,7 +157,20 @@ impl Default for HistoryMatchOptions {
 /// The result of a history match.
 #[derive(Debug, Clone, PartialEq)]
 pub struct HistoryMatch {
-    /// The fitted parameters, in order.
+    /// Oil in place N, STB.
+    pub n: f64,
+    /// Gas-cap ratio m (fitted or given).
+    pub m: f64,
+    /// The regression: parameters, their uncertainty, the matched model and diagnostics.
+    pub report: MatchReport,
+}
+
+/// What an oil or gas history match reports besides its in-place volume: the fitted
+/// parameters with standard errors, confidence limits and correlations, the matched
+/// aquifer and model, the residuals, and how the regression went.
+#[derive(Debug, Clone, PartialEq)]
+pub struct MatchReport {
+    /// The fitted parameters, in order (the in-place volume first).
     pub parameters: Vec<MatchParameter>,
     /// Their values.
     pub values: Vec<f64>,
@@ -169,10 +182,6 @@ pub struct HistoryMatch {
     pub ci_high: Vec<f64>,
     /// Correlation matrix of the parameters, row-major.
     pub correlation: Vec<f64>,
-    /// Oil in place N, STB.
-    pub n: f64,
-    /// Gas-cap ratio m (fitted or given).
-    pub m: f64,
     /// The matched aquifer (None without one).
     pub aquifer: Option<Aquifer>,
     /// Cumulative influx of the matched aquifer along the observed pressures, rb.
@@ -180,7 +189,8 @@ pub struct HistoryMatch {
     /// Average pressure predicted by the matched model from the production, psia.
     pub p_model: Vec<f64>,
     /// Residual per row: observed minus predicted pressure (psi) for
-    /// [`Objective::Pressure`], F - N Et - We (rb) for [`Objective::Withdrawal`].
+    /// [`Objective::Pressure`]; for [`Objective::Withdrawal`] the Havlena–Odeh imbalance,
+    /// rb (F - N Et - We for oil, F - G Et - We for gas).
     pub residuals: Vec<f64>,
     /// Root-mean-square residual over the used rows (psi or rb, as `residuals`).
     pub rms: f64,
@@ -1211,26 +1221,28 @@ pub(super) fn run(
         used[i] = true;
     }
     Ok(HistoryMatch {
-        parameters: params,
-        values,
-        std_errors,
-        ci_low,
-        ci_high,
-        correlation,
         n,
         m,
-        aquifer: aq,
-        we,
-        p_model,
-        residuals,
-        rms: (cost / nr as f64).sqrt(),
-        used,
-        objective: options.objective,
-        iterations,
-        evaluations: model.evaluations,
-        status,
-        condition_number,
-        warnings,
+        report: MatchReport {
+            parameters: params,
+            values,
+            std_errors,
+            ci_low,
+            ci_high,
+            correlation,
+            aquifer: aq,
+            we,
+            p_model,
+            residuals,
+            rms: (cost / nr as f64).sqrt(),
+            used,
+            objective: options.objective,
+            iterations,
+            evaluations: model.evaluations,
+            status,
+            condition_number,
+            warnings,
+        },
     })
 }
 

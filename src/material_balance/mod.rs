@@ -47,7 +47,7 @@ pub use gas_match::{
 pub use history::OilHistory;
 pub use history_match::{
     CONDITION_WARNING, CORRELATION_WARNING, HistoryMatch, HistoryMatchInput, HistoryMatchOptions,
-    LmStatus, MatchParameter, Objective, history_match, history_match_batch,
+    LmStatus, MatchParameter, MatchReport, Objective, history_match, history_match_batch,
 };
 pub use laplace::{STEHFEST_TERMS, stehfest_invert, stehfest_weights};
 pub use oil::{

@@ -847,6 +847,21 @@ fn match_options(
 }
 
 fn match_dict<'py>(py: Python<'py>, f: mb::HistoryMatch) -> PyResult<Bound<'py, PyDict>> {
+    let d = report_dict(py, f.report)?;
+    d.set_item("n", f.n)?;
+    d.set_item("m", f.m)?;
+    Ok(d)
+}
+
+fn gas_match_dict<'py>(py: Python<'py>, f: mb::GasHistoryMatch) -> PyResult<Bound<'py, PyDict>> {
+    let d = report_dict(py, f.report)?;
+    d.set_item("g", f.g)?;
+    d.set_item("ce", f.ce)?;
+    Ok(d)
+}
+
+/// The entries shared by the oil and gas match dicts.
+fn report_dict<'py>(py: Python<'py>, f: mb::MatchReport) -> PyResult<Bound<'py, PyDict>> {
     let d = PyDict::new(py);
     let names: Vec<&str> = f.parameters.iter().map(|p| p.name()).collect();
     params_into(
@@ -858,8 +873,6 @@ fn match_dict<'py>(py: Python<'py>, f: mb::HistoryMatch) -> PyResult<Bound<'py, 
         (&f.ci_low, &f.ci_high),
         f.correlation,
     )?;
-    d.set_item("n", f.n)?;
-    d.set_item("m", f.m)?;
     d.set_item("aquifer", f.aquifer.map(Aquifer))?;
     d.set_item("we", arr(py, f.we))?;
     d.set_item("p_model", arr(py, f.p_model))?;
@@ -906,35 +919,6 @@ fn objective_name(o: mb::Objective) -> &'static str {
         mb::Objective::Pressure => "pressure",
         mb::Objective::Withdrawal => "withdrawal",
     }
-}
-
-fn gas_match_dict<'py>(py: Python<'py>, f: mb::GasHistoryMatch) -> PyResult<Bound<'py, PyDict>> {
-    let d = PyDict::new(py);
-    let names: Vec<&str> = f.parameters.iter().map(|p| p.name()).collect();
-    params_into(
-        py,
-        &d,
-        &names,
-        &f.values,
-        &f.std_errors,
-        (&f.ci_low, &f.ci_high),
-        f.correlation,
-    )?;
-    d.set_item("g", f.g)?;
-    d.set_item("ce", f.ce)?;
-    d.set_item("aquifer", f.aquifer.map(Aquifer))?;
-    d.set_item("we", arr(py, f.we))?;
-    d.set_item("p_model", arr(py, f.p_model))?;
-    d.set_item("residuals", arr(py, f.residuals))?;
-    d.set_item("rms", f.rms)?;
-    d.set_item("used", numpy::PyArray1::from_vec(py, f.used))?;
-    d.set_item("objective", objective_name(f.objective))?;
-    d.set_item("iterations", f.iterations)?;
-    d.set_item("evaluations", f.evaluations)?;
-    d.set_item("status", format!("{:?}", f.status))?;
-    d.set_item("condition_number", f.condition_number)?;
-    d.set_item("warnings", PyList::new(py, f.warnings)?)?;
-    Ok(d)
 }
 
 /// History match of N, m (``m=None`` fits it) and the aquifer (its shape parameters are the
