@@ -79,9 +79,9 @@
 //! branch-free folds; the row-by-row description of a violation only where one exists).
 //!
 //! Measured (`benches/bench_blackoil.py`, 10,000 tables of 50 pressures, one core, on the
-//! project's 2-core machine under a load average of 5 to 7, i.e. its slow state): 4.2x
-//! the numpy-vectorised version of the same correlations (2.8x before the column kernel,
-//! same load), 85x numpy called once per well. `perf` of
+//! project's 2-core machine shared with other builds, load average 3 to 7): 4.2x the
+//! numpy-vectorised version of the same correlations, about 220 ns per row (2.8x before
+//! the column kernel, load 5), 70-85x numpy called once per well. `perf` of
 //! `examples/profile_black_oil.rs` (build only, one thread) puts the column kernel at about
 //! 20 % of the time, the Dranchuk–Abou-Kassem isotherm at 12 %, the check and glue at
 //! 10 %, and the operating system at 45 %: page faults, zeroing and unmapping of the fresh
