@@ -5,6 +5,11 @@
 //! FMA versions are faster: scalar code calls [`exp_scalar`] / [`ln_scalar`] (measured in
 //! `examples/profile_black_oil.rs`, see [`exp_scalar`]).
 //!
+//! A prepared correlation that runs both ways is written once, generic over the pair
+//! (`Elementary`, crate-internal): instantiated with the system library for the scalar
+//! kernels and with [`exp`] / [`ln`] inside the lane loops of the black-oil table builder,
+//! where the AVX2 copy of the loop computes four rows per instruction.
+//!
 //! Most published PVT correlations are power laws, `a x^b`; written as `exp(b ln x)` with
 //! the per-fluid parts hoisted out of the pressure loop they cost one [`ln`] and one [`exp`]
 //! per point. [`pow_positive`] and [`pow_positive_scalar`] are that form for a positive base.
@@ -306,6 +311,52 @@ pub fn ln_scalar(x: f64) -> f64 {
 #[inline(always)]
 pub fn pow_positive_scalar(x: f64, y: f64) -> f64 {
     exp_scalar(y * ln_scalar(x))
+}
+
+/// The exponential and logarithm a prepared correlation is evaluated with: the one formula
+/// of each correlation is written once, generic over this choice, and instantiated twice --
+/// with [`System`] where values come one at a time (the scalar kernels), with [`Lanes`]
+/// inside loops over whole columns that the compiler vectorises (the black-oil table
+/// builder). The two give the same values to a few units in the last place (see the module
+/// docs).
+pub(crate) trait Elementary {
+    /// e^x.
+    fn exp(x: f64) -> f64;
+    /// ln x.
+    fn ln(x: f64) -> f64;
+    /// x^y = exp(y ln x) for a positive base.
+    #[inline(always)]
+    fn pow_positive(x: f64, y: f64) -> f64 {
+        Self::exp(y * Self::ln(x))
+    }
+}
+
+/// [`exp_scalar`] / [`ln_scalar`]: the system library, one value at a time.
+pub(crate) struct System;
+
+impl Elementary for System {
+    #[inline(always)]
+    fn exp(x: f64) -> f64 {
+        exp_scalar(x)
+    }
+    #[inline(always)]
+    fn ln(x: f64) -> f64 {
+        ln_scalar(x)
+    }
+}
+
+/// [`exp`] / [`ln`]: branch-free, for loops over lanes.
+pub(crate) struct Lanes;
+
+impl Elementary for Lanes {
+    #[inline(always)]
+    fn exp(x: f64) -> f64 {
+        exp(x)
+    }
+    #[inline(always)]
+    fn ln(x: f64) -> f64 {
+        ln(x)
+    }
 }
 
 #[cfg(test)]

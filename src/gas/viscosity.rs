@@ -155,9 +155,20 @@ impl LeeGonzalezEakin {
 
     #[inline(always)]
     fn at_checked_density(&self, density_lbm_ft3: f64) -> f64 {
-        // rho^Y as exp(Y ln rho): both inline and vectorise (crate::fastmath).
+        self.at_checked_density_with::<fastmath::System>(density_lbm_ft3)
+    }
+
+    /// Viscosity, cp, at a density (lbm/ft3) already known to be finite and >= 0, with the
+    /// exponential and logarithm of `M` (the one formula; the black-oil table builder runs
+    /// it over a column with [`fastmath::Lanes`]).
+    #[inline(always)]
+    pub(crate) fn at_checked_density_with<M: fastmath::Elementary>(
+        &self,
+        density_lbm_ft3: f64,
+    ) -> f64 {
+        // rho^Y as exp(Y ln rho).
         let rho = density_lbm_ft3 / LBM_FT3_PER_G_CC;
-        1e-4 * self.k * fastmath::exp_scalar(self.x * fastmath::pow_positive_scalar(rho, self.y))
+        1e-4 * self.k * M::exp(self.x * M::pow_positive(rho, self.y))
     }
 }
 

@@ -309,10 +309,14 @@ impl StandingRs {
     /// Rs at `p` (psia, > 0, checked by the caller), scf/STB.
     #[inline(always)]
     pub(crate) fn at(&self, p: f64) -> f64 {
-        self.gas_sg
-            * fastmath::exp_scalar(
-                (fastmath::ln_scalar(p / 18.2 + 1.4) + self.a_ln10) * (1.0 / 0.83),
-            )
+        self.at_with::<fastmath::System>(p)
+    }
+
+    /// [`StandingRs::at`] with the exponential and logarithm of `M` (the one formula; the
+    /// table builder runs it over a column with [`fastmath::Lanes`]).
+    #[inline(always)]
+    pub(crate) fn at_with<M: fastmath::Elementary>(&self, p: f64) -> f64 {
+        self.gas_sg * M::exp((M::ln(p / 18.2 + 1.4) + self.a_ln10) * (1.0 / 0.83))
     }
 }
 

@@ -25,13 +25,13 @@ use super::bubble_point::{
     vasquez_beggs_gas_sg_100psig,
 };
 use super::fvf::{
-    StandingBo, apparent_compressibility, bo_ratio_with_coefficient, bo_saturated,
+    StandingBo, apparent_compressibility, bo_ratio_with_coefficient_with, bo_saturated,
     bo_saturated_drs, bo_saturated_drs_given, bo_undersaturated, co_coefficient, co_undersaturated,
-    co_with_coefficient,
+    co_with_coefficient_with,
 };
 use super::viscosity::{
     LiveOilViscosity, dead_oil_viscosity, live_oil_viscosity, undersaturated_oil_viscosity,
-    undersaturated_viscosity_ratio,
+    undersaturated_viscosity_ratio_with,
 };
 use super::{BoMethod, CoMethod, DeadOilViscosityMethod, PbMethod, sg_from_api};
 use crate::error::{Error, Result, non_negative, positive, temperature_f};
@@ -617,9 +617,9 @@ impl OilModel {
     #[inline]
     pub fn saturated_slopes(&self, p: f64, rs: f64, bo: f64) -> Result<(f64, f64)> {
         let o = &self.oil;
-        let (kp, kb) = (self.report.pb_scale, self.report.bo_scale);
-        let drs = solution_gor_dp_given(o.methods.pb, p / kp, rs, o.api) / kp;
-        let bo_corr = 1.0 + (bo - 1.0) / kb;
+        let kb = self.report.bo_scale;
+        let drs = self.rs_slope_given(o.methods.pb, p, rs);
+        let bo_corr = self.uncalibrated_bo(bo);
         if let Some(k) = &self.hoisted.bo_standing {
             return Ok((drs, kb * k.drs_given(rs, bo_corr) * drs));
         }
@@ -651,9 +651,9 @@ impl OilModel {
             return Ok(self.report.mu_ob_cp);
         }
         if rs >= 0.0 && rs.is_finite() {
-            return Ok(self.report.mu_scale * self.hoisted.live.at(rs));
+            return Ok(self.calibrated_viscosity(rs, self.hoisted.live.at(rs)));
         }
-        Ok(self.report.mu_scale * live_oil_viscosity(self.mu_od, rs)?)
+        Ok(self.calibrated_viscosity(rs, live_oil_viscosity(self.mu_od, rs)?))
     }
 
     /// Calibrated saturated Bo at solution GOR `rs`, rb/STB.
@@ -673,10 +673,7 @@ impl OilModel {
             Some(k) if rs >= 0.0 && k.group(rs) >= 0.0 => k.at_group(k.group(rs)),
             _ => bo_saturated(o.methods.bo, rs, self.g_for_bo(), o.api, o.temperature_f)?,
         };
-        if rs == self.rsi {
-            return Ok(self.report.bob);
-        }
-        Ok(1.0 + self.report.bo_scale * (b - 1.0))
+        Ok(self.calibrated_bo(rs, b))
     }
 
     /// Oil FVF at pressure `p`, rb/STB (saturated below Pb, exp(-integral co dp) above).
@@ -724,11 +721,7 @@ impl OilModel {
     #[inline]
     pub fn co_undersaturated(&self, p: f64) -> Result<f64> {
         if p > 0.0 && self.has_co_coefficient() {
-            return Ok(co_with_coefficient(
-                self.oil.methods.co,
-                self.hoisted.co_a,
-                p,
-            ));
+            return Ok(self.co_above_pb_with::<fastmath::System>(self.oil.methods.co, p));
         }
         let o = &self.oil;
         co_undersaturated(
@@ -817,8 +810,27 @@ impl OilModel {
     #[inline(always)]
     pub(crate) fn bo_above_pb(&self, p: f64, ln_p: f64) -> f64 {
         debug_assert!(p > self.pb);
+        self.bo_above_pb_with::<fastmath::System>(self.oil.methods.co, ln_p)
+    }
+
+    /// [`OilModel::bo_above_pb`] with the exponential of `M` (the one formula; the table
+    /// builder evaluates a column of it with [`fastmath::Lanes`]).
+    /// `co` must be the model's co method (`self.oil.methods.co`; a column kernel passes it
+    /// as a constant so that the choice is made once, outside its loop).
+    #[inline(always)]
+    pub(crate) fn bo_above_pb_with<M: fastmath::Elementary>(&self, co: CoMethod, ln_p: f64) -> f64 {
+        debug_assert_eq!(co, self.oil.methods.co);
         let h = &self.hoisted;
-        self.report.bob * bo_ratio_with_coefficient(self.oil.methods.co, h.co_a, ln_p, h.ln_pb)
+        self.report.bob * bo_ratio_with_coefficient_with::<M>(co, h.co_a, ln_p, h.ln_pb)
+    }
+
+    /// The undersaturated co at `p` (psia, > 0) from the hoisted coefficient (valid when
+    /// [`OilModel::has_co_coefficient`]), 1/psi, with the functions of `M`; `co` as in
+    /// [`OilModel::bo_above_pb_with`].
+    #[inline(always)]
+    pub(crate) fn co_above_pb_with<M: fastmath::Elementary>(&self, co: CoMethod, p: f64) -> f64 {
+        debug_assert_eq!(co, self.oil.methods.co);
+        co_with_coefficient_with::<M>(co, self.hoisted.co_a, p)
     }
 
     /// Whether [`OilModel::bo_above_pb`] can be used (the co correlation accepted the oil,
@@ -831,9 +843,135 @@ impl OilModel {
     /// Viscosity above Pb at finite `p` > Pb given `ln_p` = ln p, cp.
     #[inline(always)]
     pub(crate) fn viscosity_above_pb(&self, p: f64, ln_p: f64) -> f64 {
-        self.report.mu_ob_cp * undersaturated_viscosity_ratio(p, ln_p, self.hoisted.ln_pb)
+        self.viscosity_above_pb_with::<fastmath::System>(p, ln_p)
     }
 
+    /// [`OilModel::viscosity_above_pb`] with the exponential of `M` (the one formula).
+    #[inline(always)]
+    pub(crate) fn viscosity_above_pb_with<M: fastmath::Elementary>(
+        &self,
+        p: f64,
+        ln_p: f64,
+    ) -> f64 {
+        self.report.mu_ob_cp * undersaturated_viscosity_ratio_with::<M>(p, ln_p, self.hoisted.ln_pb)
+    }
+
+    /// The calibration of saturated Bo: `b` from the correlation at `rs`, 1 + k_B (b - 1),
+    /// exactly Bob at the initial GOR.
+    #[inline(always)]
+    fn calibrated_bo(&self, rs: f64, b: f64) -> f64 {
+        // Both sides loaded and computed first, then a select: a load inside the branch
+        // could not be speculated, and the branch would keep a column loop scalar.
+        let (bob, rsi) = (self.report.bob, self.rsi);
+        let scaled = 1.0 + self.report.bo_scale * (b - 1.0);
+        if rs == rsi { bob } else { scaled }
+    }
+
+    /// The correlation's Bo behind a calibrated `bo` (the inverse of the shrinkage scale).
+    #[inline(always)]
+    fn uncalibrated_bo(&self, bo: f64) -> f64 {
+        1.0 + (bo - 1.0) / self.report.bo_scale
+    }
+
+    /// The calibration of the live-oil viscosity: `mu` from the correlation at `rs` times
+    /// k_mu, exactly the Pb value at the initial GOR.
+    #[inline(always)]
+    fn calibrated_viscosity(&self, rs: f64, mu: f64) -> f64 {
+        let (mu_ob, rsi) = (self.report.mu_ob_cp, self.rsi);
+        let scaled = self.report.mu_scale * mu;
+        if rs == rsi { mu_ob } else { scaled }
+    }
+
+    /// dRs/dp (scf/STB/psi) of the calibrated saturated curve at `p` given its `rs`, for
+    /// the model's bubble-point method `method` (a constant where the caller knows it).
+    #[inline(always)]
+    fn rs_slope_given(&self, method: PbMethod, p: f64, rs: f64) -> f64 {
+        let kp = self.report.pb_scale;
+        solution_gor_dp_given(method, p / kp, rs, self.oil.api) / kp
+    }
+
+    /// The default correlation set's saturated branch (Standing's Rs and Bo) in the form
+    /// the table builder's column kernel evaluates, when the model uses both and its
+    /// undersaturated co coefficient is valid; `None` otherwise (the builder then goes row
+    /// by row through the checked methods).
+    #[inline]
+    pub(crate) fn standing_forms(&self) -> Option<StandingForms<'_>> {
+        match (self.hoisted.rs_standing, self.hoisted.bo_standing) {
+            (Some(rs), Some(bo)) if self.has_co_coefficient() => Some(StandingForms {
+                model: self,
+                rs,
+                bo,
+            }),
+            _ => None,
+        }
+    }
+}
+
+/// Standing's (1947) Rs and Bo of one calibrated model, for columns of pressures below Pb:
+/// each method is the one its checked counterpart on [`OilModel`] uses (same formula,
+/// same calibration), without the checks, generic over the exponential and logarithm
+/// ([`fastmath::Elementary`]). The table builder checks the preconditions on the results.
+#[derive(Clone, Copy)]
+pub(crate) struct StandingForms<'a> {
+    model: &'a OilModel,
+    rs: StandingRs,
+    bo: StandingBo,
+}
+
+impl StandingForms<'_> {
+    /// [`OilModel::rs`] at `p` < Pb (psia, finite, > 0), scf/STB.
+    #[inline(always)]
+    pub(crate) fn rs<M: fastmath::Elementary>(&self, p: f64) -> f64 {
+        let m = self.model;
+        self.rs.at_with::<M>(p / m.report.pb_scale).min(m.rsi)
+    }
+
+    /// Standing's correlating group F at `rs`: [`StandingForms::bo_correlation`] and
+    /// [`StandingForms::slopes`] hold where it is > 0 (as the checked forms require).
+    #[inline(always)]
+    pub(crate) fn group(&self, rs: f64) -> f64 {
+        self.bo.group(rs)
+    }
+
+    /// Standing's Bo at `rs` (F > 0) before calibration, rb/STB: with
+    /// [`StandingForms::calibrated_bo`], [`OilModel::bo_saturated`] at `rs`.
+    #[inline(always)]
+    pub(crate) fn bo_correlation<M: fastmath::Elementary>(&self, rs: f64) -> f64 {
+        self.bo.at_group_with::<M>(self.bo.group(rs))
+    }
+
+    /// The calibration of a saturated Bo `b` (rb/STB) of the correlation at `rs`.
+    #[inline(always)]
+    pub(crate) fn calibrated_bo(&self, rs: f64, b: f64) -> f64 {
+        self.model.calibrated_bo(rs, b)
+    }
+
+    /// [`OilModel::saturated_slopes`] at `p` < Pb with its `rs` and `bo` (F > 0):
+    /// (dRs/dp in scf/STB/psi, dBo/dp in rb/STB/psi).
+    #[inline(always)]
+    pub(crate) fn slopes(&self, p: f64, rs: f64, bo: f64) -> (f64, f64) {
+        let m = self.model;
+        let drs = m.rs_slope_given(PbMethod::Standing, p, rs);
+        let bo_corr = m.uncalibrated_bo(bo);
+        let dbo_drs = self.bo.drs_given_group(self.bo.group(rs), bo_corr);
+        (drs, m.report.bo_scale * dbo_drs * drs)
+    }
+
+    /// Beggs–Robinson's (1975) live-oil viscosity at `rs` before calibration, cp: with
+    /// [`StandingForms::calibrated_viscosity`], [`OilModel::viscosity_saturated`] at `rs`.
+    #[inline(always)]
+    pub(crate) fn viscosity_correlation<M: fastmath::Elementary>(&self, rs: f64) -> f64 {
+        self.model.hoisted.live.at_with::<M>(rs)
+    }
+
+    /// The calibration of a live-oil viscosity `mu` (cp) of the correlation at `rs`.
+    #[inline(always)]
+    pub(crate) fn calibrated_viscosity(&self, rs: f64, mu: f64) -> f64 {
+        self.model.calibrated_viscosity(rs, mu)
+    }
+}
+
+impl OilModel {
     /// Dead-oil viscosity at reservoir temperature, cp (uncalibrated).
     ///
     /// # Examples

@@ -246,7 +246,13 @@ impl StandingBo {
     /// Bo (rb/STB) at a correlating group `f` >= 0.
     #[inline(always)]
     pub(crate) fn at_group(&self, f: f64) -> f64 {
-        0.9759 + 0.00012 * fastmath::pow_positive_scalar(f, 1.2)
+        self.at_group_with::<fastmath::System>(f)
+    }
+
+    /// [`StandingBo::at_group`] with the exponential and logarithm of `M` (the one formula).
+    #[inline(always)]
+    pub(crate) fn at_group_with<M: fastmath::Elementary>(&self, f: f64) -> f64 {
+        0.9759 + 0.00012 * M::pow_positive(f, 1.2)
     }
 
     /// dBo/dRs at `rs` given `bo` = Bo(rs): Bo - 0.9759 = 0.00012 F^1.2, so
@@ -255,10 +261,19 @@ impl StandingBo {
     pub(crate) fn drs_given(&self, rs: f64, bo: f64) -> f64 {
         let f = self.group(rs);
         if f > 0.0 {
-            1.2 * (bo - 0.9759) * self.r / f
+            self.drs_given_group(f, bo)
         } else {
             0.00012 * 1.2 * f.max(0.0).powf(0.2) * self.r
         }
+    }
+}
+
+impl StandingBo {
+    /// dBo/dRs given the correlating group `f` = F(rs) > 0 and `bo` = Bo(rs) (the branch
+    /// of [`StandingBo::drs_given`] that needs no power function; no branch, for columns).
+    #[inline(always)]
+    pub(crate) fn drs_given_group(&self, f: f64, bo: f64) -> f64 {
+        1.2 * (bo - 0.9759) * self.r / f
     }
 }
 
@@ -370,9 +385,19 @@ pub fn co_undersaturated(
 /// implementation of the pressure dependence behind [`co_undersaturated`].
 #[inline(always)]
 pub(crate) fn co_with_coefficient(method: CoMethod, a: f64, p: f64) -> f64 {
+    co_with_coefficient_with::<fastmath::System>(method, a, p)
+}
+
+/// [`co_with_coefficient`] with the exponential and logarithm of `M` (the one formula).
+#[inline(always)]
+pub(crate) fn co_with_coefficient_with<M: fastmath::Elementary>(
+    method: CoMethod,
+    a: f64,
+    p: f64,
+) -> f64 {
     match method {
         CoMethod::VasquezBeggs => a / p,
-        CoMethod::PetroskyFarshad => a * fastmath::pow_positive_scalar(p, -0.5906),
+        CoMethod::PetroskyFarshad => a * M::pow_positive(p, -0.5906),
     }
 }
 
@@ -381,16 +406,25 @@ pub(crate) fn co_with_coefficient(method: CoMethod, a: f64, p: f64) -> f64 {
 /// [`bo_undersaturated`].
 #[inline(always)]
 pub(crate) fn bo_ratio_with_coefficient(method: CoMethod, a: f64, ln_p: f64, ln_pb: f64) -> f64 {
+    bo_ratio_with_coefficient_with::<fastmath::System>(method, a, ln_p, ln_pb)
+}
+
+/// [`bo_ratio_with_coefficient`] with the exponential of `M` (the one formula; the table
+/// builder runs it over a column with [`fastmath::Lanes`]).
+#[inline(always)]
+pub(crate) fn bo_ratio_with_coefficient_with<M: fastmath::Elementary>(
+    method: CoMethod,
+    a: f64,
+    ln_p: f64,
+    ln_pb: f64,
+) -> f64 {
     match method {
         // Bo = Bob (p / Pb)^-a
-        CoMethod::VasquezBeggs => fastmath::exp_scalar(-a * (ln_p - ln_pb)),
+        CoMethod::VasquezBeggs => M::exp(-a * (ln_p - ln_pb)),
         // Bo = Bob exp(-a (p^0.4094 - Pb^0.4094) / 0.4094)
         CoMethod::PetroskyFarshad => {
-            let (x, xb) = (
-                fastmath::exp_scalar(0.4094 * ln_p),
-                fastmath::exp_scalar(0.4094 * ln_pb),
-            );
-            fastmath::exp_scalar(-a * (x - xb) / 0.4094)
+            let (x, xb) = (M::exp(0.4094 * ln_p), M::exp(0.4094 * ln_pb));
+            M::exp(-a * (x - xb) / 0.4094)
         }
     }
 }
@@ -525,7 +559,24 @@ pub fn apparent_compressibility(
 ) -> Result<f64> {
     positive("bo", bo)?;
     non_negative("bg_rb_per_scf", bg_rb_per_scf)?;
-    Ok((-dbo_dp + bg_rb_per_scf * drs_dp) / bo)
+    Ok(apparent_compressibility_unchecked(
+        bo,
+        dbo_dp,
+        bg_rb_per_scf,
+        drs_dp,
+    ))
+}
+
+/// The formula of [`apparent_compressibility`] for arguments known to be valid (the black-oil
+/// table builder's column kernel checks `bo` > 0 and `bg_rb_per_scf` >= 0 on its results).
+#[inline(always)]
+pub(crate) fn apparent_compressibility_unchecked(
+    bo: f64,
+    dbo_dp: f64,
+    bg_rb_per_scf: f64,
+    drs_dp: f64,
+) -> f64 {
+    (-dbo_dp + bg_rb_per_scf * drs_dp) / bo
 }
 
 /// Total (two-phase) formation volume factor: the reservoir volume of one STB of oil plus the
@@ -566,7 +617,14 @@ pub fn total_fvf(bo: f64, bg_rb_per_scf: f64, rsi: f64, rs: f64) -> Result<f64> 
     if rs > rsi * (1.0 + 1e-12) {
         return Err(Error::invalid("rs", rs, "must not exceed rsi"));
     }
-    Ok(bo + bg_rb_per_scf * (rsi - rs))
+    Ok(total_fvf_unchecked(bo, bg_rb_per_scf, rsi, rs))
+}
+
+/// The formula of [`total_fvf`] for arguments known to be valid (the black-oil table
+/// builder's column kernel).
+#[inline(always)]
+pub(crate) fn total_fvf_unchecked(bo: f64, bg_rb_per_scf: f64, rsi: f64, rs: f64) -> f64 {
+    bo + bg_rb_per_scf * (rsi - rs)
 }
 
 /// Oil density at reservoir conditions from the mass balance of one stock-tank barrel of oil

@@ -197,8 +197,15 @@ impl LiveOilViscosity {
     /// caller).
     #[inline(always)]
     pub(crate) fn at(&self, rs: f64) -> f64 {
-        let b = 5.44 * fastmath::exp_scalar(-0.338 * fastmath::ln_scalar(rs + 150.0));
-        fastmath::exp_scalar(LN_A0 - 0.515 * fastmath::ln_scalar(rs + 100.0) + b * self.ln_mu_od)
+        self.at_with::<fastmath::System>(rs)
+    }
+
+    /// [`LiveOilViscosity::at`] with the exponential and logarithm of `M` (the one formula;
+    /// the table builder runs it over a column with [`fastmath::Lanes`]).
+    #[inline(always)]
+    pub(crate) fn at_with<M: fastmath::Elementary>(&self, rs: f64) -> f64 {
+        let b = 5.44 * M::exp(-0.338 * M::ln(rs + 150.0));
+        M::exp(LN_A0 - 0.515 * M::ln(rs + 100.0) + b * self.ln_mu_od)
     }
 }
 
@@ -250,9 +257,20 @@ pub fn undersaturated_oil_viscosity(p: f64, pb: f64, mu_ob: f64) -> Result<f64> 
 /// [`undersaturated_oil_viscosity`].
 #[inline(always)]
 pub(crate) fn undersaturated_viscosity_ratio(p: f64, ln_p: f64, ln_pb: f64) -> f64 {
+    undersaturated_viscosity_ratio_with::<fastmath::System>(p, ln_p, ln_pb)
+}
+
+/// [`undersaturated_viscosity_ratio`] with the exponential of `M` (the one formula; the
+/// table builder runs it over a column with [`fastmath::Lanes`]).
+#[inline(always)]
+pub(crate) fn undersaturated_viscosity_ratio_with<M: fastmath::Elementary>(
+    p: f64,
+    ln_p: f64,
+    ln_pb: f64,
+) -> f64 {
     // m = 2.6 p^1.187 exp(-11.513 - 8.98e-5 p), ratio = (p / Pb)^m.
-    let m = 2.6 * fastmath::exp_scalar(1.187 * ln_p - 11.513 - 8.98e-5 * p);
-    fastmath::exp_scalar(m * (ln_p - ln_pb))
+    let m = 2.6 * M::exp(1.187 * ln_p - 11.513 - 8.98e-5 * p);
+    M::exp(m * (ln_p - ln_pb))
 }
 
 #[cfg(test)]

@@ -765,12 +765,23 @@ pub fn viscosity_mccain(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f
     let p = pressure(p_psia)?;
     let t = positive_f(t_f)?;
     let s = salinity("salinity_wt_pct", salinity_wt_pct)?;
+    Ok(mccain_at(mccain_mu1(t, s), p))
+}
+
+/// McCain's (1991) viscosity at 1 atm, cp, at `t` (degF, > 0) and `s` (wt%).
+#[inline]
+fn mccain_mu1(t: f64, s: f64) -> f64 {
     let s2 = s * s;
     let a = 109.574 - 8.405_64 * s + 0.313_314 * s2 + 8.722_13e-3 * s2 * s;
     let b = -1.121_66 + 2.639_51e-2 * s - 6.794_61e-4 * s2 - 5.471_19e-5 * s2 * s
         + 1.555_86e-6 * s2 * s2;
-    let mu1 = a * t.powf(b);
-    Ok(mu1 * (0.9994 + 4.0295e-5 * p + 3.1062e-9 * p * p))
+    a * t.powf(b)
+}
+
+/// McCain's (1991) viscosity at `p` (psia) from its 1-atm value `mu1` (cp).
+#[inline(always)]
+fn mccain_at(mu1: f64, p: f64) -> f64 {
+    mu1 * (0.9994 + 4.0295e-5 * p + 3.1062e-9 * p * p)
 }
 
 /// Viscosity of brine, Meehan (1980): a hyperbola in temperature at atmospheric pressure
@@ -819,9 +830,7 @@ pub fn viscosity_meehan(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f
     let p = pressure(p_psia)?;
     let t = positive_f(t_f)?;
     let s = salinity("salinity_wt_pct", salinity_wt_pct)?;
-    let a = -0.045_18 + 0.009_313 * s - 0.000_393 * s * s;
-    let b = 70.634 + 0.095_76 * s * s;
-    let mu = (a + b / t) * (1.0 + 3.5e-12 * p * p * (t - 40.0));
+    let mu = meehan_at(meehan_mu1(t, s), p, t);
     if mu > 0.0 {
         Ok(mu)
     } else {
@@ -830,6 +839,60 @@ pub fn viscosity_meehan(p_psia: f64, t_f: f64, salinity_wt_pct: f64) -> Result<f
             t,
             "too far outside the range of Meehan's viscosity (the viscosity would not be positive)",
         ))
+    }
+}
+
+/// Meehan's (1980) viscosity at 1 atm, cp, at `t` (degF, > 0) and `s` (wt%).
+#[inline]
+fn meehan_mu1(t: f64, s: f64) -> f64 {
+    let a = -0.045_18 + 0.009_313 * s - 0.000_393 * s * s;
+    let b = 70.634 + 0.095_76 * s * s;
+    a + b / t
+}
+
+/// Meehan's (1980) viscosity at `p` (psia) and `t` (degF) from its 1-atm value `mu1` (cp).
+#[inline(always)]
+fn meehan_at(mu1: f64, p: f64, t: f64) -> f64 {
+    mu1 * (1.0 + 3.5e-12 * p * p * (t - 40.0))
+}
+
+/// One brine along one isotherm, its temperature and salinity terms computed once: Bw
+/// ([`bw_mccain`]) and viscosity (the chosen method) for columns of pressures, the same
+/// formulas as [`Water::bw`] and [`Water::viscosity`] without the per-point checks (the
+/// black-oil table builder checks the results: Bw and viscosity must come out positive).
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct WaterIsotherm {
+    t: f64,
+    bw_base: f64,
+    method: ViscosityMethod,
+    mu1: f64,
+}
+
+impl WaterIsotherm {
+    /// Bw (rb/STB) at every pressure of `p` (psia, finite, > 0) into `out`.
+    #[inline(always)]
+    pub(crate) fn bw_column(&self, p: &[f64], out: &mut [f64]) {
+        for (o, &p) in out.iter_mut().zip(p) {
+            *o = bw_raw(p, self.t) / self.bw_base;
+        }
+    }
+
+    /// Viscosity (cp) at every pressure of `p` (psia, finite, > 0) into `out`.
+    #[inline(always)]
+    pub(crate) fn viscosity_column(&self, p: &[f64], out: &mut [f64]) {
+        let (mu1, t) = (self.mu1, self.t);
+        match self.method {
+            ViscosityMethod::Meehan1980 => {
+                for (o, &p) in out.iter_mut().zip(p) {
+                    *o = meehan_at(mu1, p, t);
+                }
+            }
+            ViscosityMethod::McCain1991 => {
+                for (o, &p) in out.iter_mut().zip(p) {
+                    *o = mccain_at(mu1, p);
+                }
+            }
+        }
     }
 }
 
@@ -1160,6 +1223,25 @@ impl Water {
     /// The standard conditions of the stock-tank volume.
     pub fn standard_conditions(&self) -> StandardConditions {
         self.standard_conditions
+    }
+
+    /// This water along the isotherm `t_f` (degF), for columns of pressures.
+    ///
+    /// # Errors
+    /// [`Error::InvalidArgument`] naming `t` (the viscosity correlations need t > 0 degF).
+    #[inline]
+    pub(crate) fn isotherm(&self, t_f: f64) -> Result<WaterIsotherm> {
+        let t = positive_f(temperature_f("t", t_f)?)?;
+        let s = self.salinity_wt_pct;
+        Ok(WaterIsotherm {
+            t,
+            bw_base: self.bw_base,
+            method: self.viscosity_method,
+            mu1: match self.viscosity_method {
+                ViscosityMethod::Meehan1980 => meehan_mu1(t, s),
+                ViscosityMethod::McCain1991 => mccain_mu1(t, s),
+            },
+        })
     }
 
     /// Formation volume factor Bw, rb/STB, by [`bw_mccain`].
