@@ -68,8 +68,8 @@
 //! is a loop over fixed-size lane arrays (8 rows per step) of the rows below Pb, of the rows
 //! above it or of all rows, with the branch-free [`crate::fastmath::exp`] /
 //! [`crate::fastmath::ln`], compiled a second time for AVX2 + FMA and chosen at run time
-//! ([`crate::simd`]); each power law costs one logarithm and one exponential per row, and
-//! the formulas are those of the scalar kernels (the prepared forms are generic over the
+//! (the crate's `simd` module); each power law costs one logarithm and one exponential per
+//! row, and the formulas are those of the scalar kernels (the prepared forms are generic over the
 //! exponential and logarithm). The Pb row, other correlation sets and any table whose
 //! values leave the conditions under which the checked methods return them without an
 //! error go row by row through the checked methods, which name the bad value. The two
