@@ -154,21 +154,7 @@ impl GasPvtTable {
     /// assert_eq!(t.bg(2000.0).unwrap(), 0.0015);
     /// ```
     pub fn bg(&self, p: f64) -> Result<f64> {
-        if p.is_nan() {
-            return Err(Error::invalid("p", p, "must not be NaN"));
-        }
-        let (lo, hi) = self.pressure_range();
-        if p < lo || p > hi {
-            return Err(Error::OutOfRange(format!(
-                "pressure {p} psia lies outside the gas table's range [{lo}, {hi}] psia"
-            )));
-        }
-        let n = self.p.len();
-        let k = match self.p.partition_point(|&x| x <= p) {
-            0 => 0,
-            j if j >= n => n - 2,
-            j => j - 1,
-        };
+        let k = super::pvt::interval(&self.p, p, "gas table")?;
         Ok(self.bg_p.eval(&self.p, k, p).0 / p)
     }
 }

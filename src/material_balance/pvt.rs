@@ -283,21 +283,7 @@ impl PvtTable {
     /// assert!((t.at(1500.0).unwrap().rs - 400.0).abs() < 1e-12);
     /// ```
     pub fn at(&self, p: f64) -> Result<PvtPoint> {
-        if p.is_nan() {
-            return Err(Error::invalid("p", p, "must not be NaN"));
-        }
-        let (lo, hi) = self.pressure_range();
-        if p < lo || p > hi {
-            return Err(Error::OutOfRange(format!(
-                "pressure {p} psia lies outside the PVT table's range [{lo}, {hi}] psia"
-            )));
-        }
-        let n = self.p.len();
-        let k = match self.p.partition_point(|&x| x <= p) {
-            0 => 0,
-            j if j >= n => n - 2,
-            j => j - 1,
-        };
+        let k = interval(&self.p, p, "PVT table")?;
         let xs = &self.p;
         let (bo, dbo) = self.bo.eval(xs, k, p);
         let (rs, drs) = self.rs.eval(xs, k, p);
@@ -366,4 +352,25 @@ impl PvtTable {
         let qi = self.at(p_initial)?;
         Ok(q.bo + (qi.rs - q.rs) * q.bg)
     }
+}
+
+/// The interval `k` of an increasing pressure grid (at least two rows) that holds `p`:
+/// `grid[k] <= p <= grid[k + 1]`. Errors: [`Error::InvalidArgument`] naming `p` for NaN,
+/// [`Error::OutOfRange`] naming `table` outside the grid (tables do not extrapolate).
+pub(super) fn interval(grid: &[f64], p: f64, table: &str) -> Result<usize> {
+    if p.is_nan() {
+        return Err(Error::invalid("p", p, "must not be NaN"));
+    }
+    let n = grid.len();
+    let (lo, hi) = (grid[0], grid[n - 1]);
+    if p < lo || p > hi {
+        return Err(Error::OutOfRange(format!(
+            "pressure {p} psia lies outside the {table}'s range [{lo}, {hi}] psia"
+        )));
+    }
+    Ok(match grid.partition_point(|&x| x <= p) {
+        0 => 0,
+        j if j >= n => n - 2,
+        j => j - 1,
+    })
 }
