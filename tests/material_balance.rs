@@ -658,13 +658,14 @@ fn tarner_agrees_with_muskat_and_closes_the_balance() {
     let k = CoreyGasOil::new(0.2, 0.05, 0.15, 0.7, 0.9, 2.0, 3.0).unwrap();
     let mu = muskat_forecast(&table, &k, PB, 600.0, 190).unwrap();
     let ta = tarner_forecast(&table, &k, PB, 600.0, 190).unwrap();
-    assert_eq!(mu.p.len(), ta.p.len());
+    assert_eq!(mu.p.len(), ta.forecast.p.len());
     let mut worst: [f64; 3] = [0.0; 3];
-    for i in 1..ta.p.len() {
-        assert_eq!(mu.p[i], ta.p[i]);
-        worst[0] = worst[0].max((ta.np_over_n[i] - mu.np_over_n[i]).abs() / mu.np_over_n[i]);
-        worst[1] = worst[1].max((ta.gor[i] - mu.gor[i]).abs() / mu.gor[i]);
-        worst[2] = worst[2].max((ta.so[i] - mu.so[i]).abs());
+    for i in 1..ta.forecast.p.len() {
+        assert_eq!(mu.p[i], ta.forecast.p[i]);
+        worst[0] =
+            worst[0].max((ta.forecast.np_over_n[i] - mu.np_over_n[i]).abs() / mu.np_over_n[i]);
+        worst[1] = worst[1].max((ta.forecast.gor[i] - mu.gor[i]).abs() / mu.gor[i]);
+        worst[2] = worst[2].max((ta.forecast.so[i] - mu.so[i]).abs());
     }
     // Stated tolerance with 10-psi steps: 1e-4 relative on Np/N, 3e-4 on GOR, 1e-5 on So
     // (Tarner's trapezoidal GOR integral is second order in the step: the gap shrinks
@@ -677,38 +678,42 @@ fn tarner_agrees_with_muskat_and_closes_the_balance() {
     // Tarner's Gp from the GOR integral equals Gp from the material balance at every row:
     // (Np/N)[Bt + (Rp - Rsi) Bg] = Bt - Bti (Craft & Hawkins 1959, ch. 4).
     let qb = table.at(PB).unwrap();
-    for i in 1..ta.p.len() {
-        let q = table.at(ta.p[i]).unwrap();
+    for i in 1..ta.forecast.p.len() {
+        let q = table.at(ta.forecast.p[i]).unwrap();
         let bt = q.bo + (qb.rs - q.rs) * q.bg;
-        let lhs = ta.np_over_n[i] * bt + (ta.gp_over_n[i] - ta.np_over_n[i] * qb.rs) * q.bg;
+        let lhs = ta.forecast.np_over_n[i] * bt
+            + (ta.forecast.gp_over_n[i] - ta.forecast.np_over_n[i] * qb.rs) * q.bg;
         assert!((lhs - (bt - qb.bo)).abs() < 1e-9 * (bt - qb.bo), "row {i}");
         // The saturation equation (Craft & Hawkins 1959, ch. 4).
-        let so = (1.0 - k.swc) * (1.0 - ta.np_over_n[i]) * q.bo / qb.bo;
-        assert!((ta.so[i] - so).abs() < 1e-12);
-        assert!((ta.sg[i] + ta.so[i] + k.swc - 1.0).abs() < 1e-12);
+        let so = (1.0 - k.swc) * (1.0 - ta.forecast.np_over_n[i]) * q.bo / qb.bo;
+        assert!((ta.forecast.so[i] - so).abs() < 1e-12);
+        assert!((ta.forecast.sg[i] + ta.forecast.so[i] + k.swc - 1.0).abs() < 1e-12);
     }
     assert!(ta.max_mismatch < 1e-6, "{}", ta.max_mismatch);
     // GOR = Rs while Sg < Sgc (common practice, no source): gas is immobile below its
     // critical saturation, so the producing GOR is the solution GOR.
     let mut below = 0;
-    for i in 0..ta.p.len() {
-        if ta.sg[i] < k.sgc {
+    for i in 0..ta.forecast.p.len() {
+        if ta.forecast.sg[i] < k.sgc {
             below += 1;
-            let q = table.at(ta.p[i]).unwrap();
-            assert_eq!(ta.krg_over_kro[i], 0.0);
-            assert!((ta.gor[i] - q.rs).abs() < 1e-9 * q.rs, "row {i}");
+            let q = table.at(ta.forecast.p[i]).unwrap();
+            assert_eq!(ta.forecast.krg_over_kro[i], 0.0);
+            assert!((ta.forecast.gor[i] - q.rs).abs() < 1e-9 * q.rs, "row {i}");
         }
     }
     assert!(below > 3, "the test needs rows below Sgc");
-    assert!(ta.gor.iter().cloned().fold(0.0, f64::max) > 2.0 * qb.rs);
+    assert!(ta.forecast.gor.iter().cloned().fold(0.0, f64::max) > 2.0 * qb.rs);
     // RF = Np/N (common practice, no source): Np = RF N.
-    let last = ta.np_over_n.len() - 1;
+    let last = ta.forecast.np_over_n.len() - 1;
     let n_stb = 1_000_000.0;
-    assert!((ta.np_over_n[last] * n_stb / n_stb - ta.np_over_n[last]).abs() < 1e-15);
+    assert!(
+        (ta.forecast.np_over_n[last] * n_stb / n_stb - ta.forecast.np_over_n[last]).abs() < 1e-15
+    );
     assert!(ta.iterations[1..].iter().all(|n| (1..200).contains(n)));
     // A coarse Tarner run (10 steps of 190 psi) stays close to the fine one at the end.
     let coarse = tarner_forecast(&table, &k, PB, 600.0, 10).unwrap();
-    let rel = (coarse.np_over_n[10] - ta.np_over_n[last]).abs() / ta.np_over_n[last];
+    let rel = (coarse.forecast.np_over_n[10] - ta.forecast.np_over_n[last]).abs()
+        / ta.forecast.np_over_n[last];
     assert!(rel < 0.05, "coarse {rel}");
 }
 
@@ -731,7 +736,7 @@ fn tarner_rejects_bad_input_and_stops_when_oil_is_immobile() {
     // A large residual oil saturation: the oil becomes immobile before p_end.
     let tight = CoreyGasOil::new(0.2, 0.0, 0.75, 1.0, 1.0, 1.0, 1.0).unwrap();
     let f = tarner_forecast(&table, &tight, PB, 400.0, 100).unwrap();
-    assert!(f.stopped_early || f.so.iter().all(|&s| s >= 0.75 - 1e-9));
+    assert!(f.forecast.stopped_early || f.forecast.so.iter().all(|&s| s >= 0.75 - 1e-9));
 }
 
 // ---- Bad input ---------------------------------------------------------------------------------

@@ -26,9 +26,9 @@ use crate::error::{Error, Result, positive};
 use crate::relperm::CoreyGasOil;
 
 /// A solution-gas-drive forecast, one value per pressure step (the first row is the
-/// bubble point).
+/// bubble point): the result of [`muskat_forecast`], and the rows of [`TarnerForecast`].
 #[derive(Debug, Clone, PartialEq)]
-pub struct MuskatForecast {
+pub struct SolutionGasForecast {
     /// Pressure, psia (descending).
     pub p: Vec<f64>,
     /// Oil saturation, fraction.
@@ -46,6 +46,9 @@ pub struct MuskatForecast {
     /// True when the forecast stopped early because the oil became immobile.
     pub stopped_early: bool,
 }
+
+/// The result of [`muskat_forecast`].
+pub type MuskatForecast = SolutionGasForecast;
 
 /// Forecast pressure, producing GOR and Np/N of a volumetric solution-gas-drive reservoir
 /// below its bubble point by Muskat's (1945) differential material balance.
@@ -168,30 +171,17 @@ pub fn muskat_forecast(
     Ok(out)
 }
 
-/// A Tarner (1944) forecast: the same rows as [`MuskatForecast`] plus, per step, how the
+/// A Tarner (1944) forecast: the rows of a [`SolutionGasForecast`] plus, per step, how the
 /// trial-and-error on the oil increment ended.
 #[derive(Debug, Clone, PartialEq)]
 pub struct TarnerForecast {
-    /// Pressure, psia (descending; the first row is the bubble point).
-    pub p: Vec<f64>,
-    /// Oil saturation, fraction.
-    pub so: Vec<f64>,
-    /// Gas saturation 1 - So - Swc, fraction.
-    pub sg: Vec<f64>,
-    /// krg/kro at Sg, dimensionless.
-    pub krg_over_kro: Vec<f64>,
-    /// Producing (instantaneous) gas-oil ratio R, scf/STB.
-    pub gor: Vec<f64>,
-    /// Cumulative oil over oil in place Np/N, the recovery factor, fraction.
-    pub np_over_n: Vec<f64>,
-    /// Cumulative gas over oil in place Gp/N, scf/STB.
-    pub gp_over_n: Vec<f64>,
+    /// Pressure (descending; the first row is the bubble point), saturations, GOR, Np/N and
+    /// Gp/N per step.
+    pub forecast: SolutionGasForecast,
     /// Root-finder iterations of each row (0 for the bubble-point row).
     pub iterations: Vec<usize>,
     /// Largest mismatch |Gp(MBE) - Gp(GOR)| / N at a converged step, scf/STB.
     pub max_mismatch: f64,
-    /// True when the forecast stopped early because the oil became immobile.
-    pub stopped_early: bool,
 }
 
 /// Relative tolerance of the Tarner root find on the oil increment (bracket width relative
@@ -260,8 +250,8 @@ fn check_forecast_inputs(pvt: &PvtTable, p_bubble: f64, p_end: f64, n_steps: usi
 ///     .unwrap().with_viscosities(vec![1.6, 0.8], vec![0.012, 0.019]).unwrap();
 /// let k = CoreyGasOil::new(0.25, 0.05, 0.2, 0.8, 1.0, 2.0, 3.0).unwrap();
 /// let f = tarner_forecast(&pvt, &k, 2500.0, 500.0, 40).unwrap();
-/// assert_eq!(f.np_over_n[0], 0.0);
-/// assert!(f.np_over_n.windows(2).all(|w| w[1] > w[0]));
+/// assert_eq!(f.forecast.np_over_n[0], 0.0);
+/// assert!(f.forecast.np_over_n.windows(2).all(|w| w[1] > w[0]));
 /// ```
 ///
 /// # References
@@ -281,16 +271,18 @@ pub fn tarner_forecast(
     let swc = relperm.swc;
     let qb = pvt.at(p_bubble)?;
     let mut out = TarnerForecast {
-        p: vec![p_bubble],
-        so: vec![1.0 - swc],
-        sg: vec![0.0],
-        krg_over_kro: vec![relperm.krg_over_kro(0.0)],
-        gor: vec![qb.rs],
-        np_over_n: vec![0.0],
-        gp_over_n: vec![0.0],
+        forecast: SolutionGasForecast {
+            p: vec![p_bubble],
+            so: vec![1.0 - swc],
+            sg: vec![0.0],
+            krg_over_kro: vec![relperm.krg_over_kro(0.0)],
+            gor: vec![qb.rs],
+            np_over_n: vec![0.0],
+            gp_over_n: vec![0.0],
+            stopped_early: false,
+        },
         iterations: vec![0],
         max_mismatch: 0.0,
-        stopped_early: false,
     };
     let dp_step = (p_bubble - p_end) / n_steps as f64;
     for step in 1..=n_steps {
@@ -300,8 +292,12 @@ pub fn tarner_forecast(
             p_bubble - dp_step * step as f64
         };
         let q = pvt.at(p)?;
-        let k = out.p.len() - 1;
-        let (np0, gp0, r0) = (out.np_over_n[k], out.gp_over_n[k], out.gor[k]);
+        let k = out.forecast.p.len() - 1;
+        let (np0, gp0, r0) = (
+            out.forecast.np_over_n[k],
+            out.forecast.gp_over_n[k],
+            out.forecast.gor[k],
+        );
         let bt = q.bo + (qb.rs - q.rs) * q.bg;
         // State at the trial oil increment x: (So, Sg, krg/kro, R, mismatch).
         let state = |x: f64| {
@@ -319,7 +315,7 @@ pub fn tarner_forecast(
         let x_hi = np_max - np0;
         let f_lo = state(0.0).4;
         if x_hi <= 0.0 || !f_lo.is_finite() {
-            out.stopped_early = true;
+            out.forecast.stopped_early = true;
             break;
         }
         if f_lo < 0.0 {
@@ -340,17 +336,17 @@ pub fn tarner_forecast(
         };
         let (so, sg, ratio, r, mismatch) = state(x);
         if !ratio.is_finite() {
-            out.stopped_early = true;
+            out.forecast.stopped_early = true;
             break;
         }
         out.max_mismatch = out.max_mismatch.max(mismatch.abs());
-        out.p.push(p);
-        out.so.push(so);
-        out.sg.push(sg);
-        out.krg_over_kro.push(ratio);
-        out.gor.push(r);
-        out.np_over_n.push(np0 + x);
-        out.gp_over_n.push(gp0 + 0.5 * (r0 + r) * x);
+        out.forecast.p.push(p);
+        out.forecast.so.push(so);
+        out.forecast.sg.push(sg);
+        out.forecast.krg_over_kro.push(ratio);
+        out.forecast.gor.push(r);
+        out.forecast.np_over_n.push(np0 + x);
+        out.forecast.gp_over_n.push(gp0 + 0.5 * (r0 + r) * x);
         out.iterations.push(iterations);
     }
     Ok(out)

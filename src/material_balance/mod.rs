@@ -38,7 +38,8 @@ pub use diagnostics::{
 };
 pub use fit::{LineFit, fit_line, t_critical};
 pub use forecast::{
-    MuskatForecast, TARNER_TOLERANCE, TarnerForecast, muskat_forecast, tarner_forecast,
+    MuskatForecast, SolutionGasForecast, TARNER_TOLERANCE, TarnerForecast, muskat_forecast,
+    tarner_forecast,
 };
 pub use gas::{GasFit, cole_plot, gas_bg, gas_water_drive_fit, pz_fit, pz_fit_abnormal};
 pub use gas_match::{

@@ -1394,6 +1394,11 @@ fn muskat_forecast<'py>(
     let k = relperm.0;
     let table = &pvt.inner;
     let f = py.detach(|| mb::muskat_forecast(table, &k, p_bubble, p_end, n_steps))?;
+    forecast_dict(py, f)
+}
+
+/// The per-step dict shared by the Muskat and Tarner forecasts.
+fn forecast_dict(py: Python<'_>, f: mb::SolutionGasForecast) -> PyResult<Bound<'_, PyDict>> {
     let d = PyDict::new(py);
     d.set_item("p", arr(py, f.p))?;
     d.set_item("so", arr(py, f.so))?;
@@ -1423,18 +1428,10 @@ fn tarner_forecast<'py>(
     let k = relperm.0;
     let table = &pvt.inner;
     let f = py.detach(|| mb::tarner_forecast(table, &k, p_bubble, p_end, n_steps))?;
-    let d = PyDict::new(py);
-    d.set_item("p", arr(py, f.p))?;
-    d.set_item("so", arr(py, f.so))?;
-    d.set_item("sg", arr(py, f.sg))?;
-    d.set_item("krg_over_kro", arr(py, f.krg_over_kro))?;
-    d.set_item("gor", arr(py, f.gor))?;
-    d.set_item("np_over_n", arr(py, f.np_over_n))?;
-    d.set_item("gp_over_n", arr(py, f.gp_over_n))?;
+    let d = forecast_dict(py, f.forecast)?;
     let it: Vec<u64> = f.iterations.iter().map(|&v| v as u64).collect();
     d.set_item("iterations", it.into_pyarray(py))?;
     d.set_item("max_mismatch", f.max_mismatch)?;
-    d.set_item("stopped_early", f.stopped_early)?;
     Ok(d)
 }
 
