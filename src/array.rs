@@ -264,7 +264,7 @@ where
     let sources: [Source<'_>; N] = inputs.each_ref().map(|v| source(v, &shape));
     // The multi-index is only read by strided (broadcast) sources; an error recomputes it.
     let strided = sources.iter().any(|s| matches!(s, Source::Strided(..)));
-    let mut outs: [Vec<f64>; M] = std::array::from_fn(|_| vec![0.0; total]);
+    let mut outs: [Vec<f64>; M] = std::array::from_fn(|_| crate::pages::zeroed(total));
 
     let run = |start: usize, mut chunk: [&mut [f64]; M]| -> Option<(Vec<usize>, Error)> {
         let len = chunk[0].len();
@@ -297,7 +297,7 @@ where
         None
     };
 
-    let first_error = if total < PARALLEL_THRESHOLD {
+    let first_error = if serial(total) {
         run(0, outs.each_mut().map(|v| v.as_mut_slice()))
     } else {
         let mut iters = outs.each_mut().map(|v| v.chunks_mut(CHUNK));
@@ -320,6 +320,15 @@ where
     let dim = IxDyn(&shape);
     // The output length is the product of `shape` by construction, so this cannot fail.
     Ok(outs.map(|v| ArrayD::from_shape_vec(dim.clone(), v).expect("len == shape product")))
+}
+
+/// Whether `total` elements are computed on the calling thread: below
+/// [`PARALLEL_THRESHOLD`], or when the pool has a single thread. Handing the work to a lone
+/// pool thread gains nothing and costs its wake-up: measured at 0.6-0.8 ms for 1e5
+/// Z-factors called after a pause (`benches/bench_zfactor.py` with `RAYON_NUM_THREADS=1`),
+/// a quarter of the computation.
+fn serial(total: usize) -> bool {
+    total < PARALLEL_THRESHOLD || rayon::current_num_threads() == 1
 }
 
 /// Elements handed at once to the kernel of [`lift_batched`].
@@ -381,7 +390,7 @@ where
     let sources: [Source<'_>; N] = inputs.each_ref().map(|v| source(v, &shape));
     // The multi-index is only read by strided (broadcast) sources; an error recomputes it.
     let strided = sources.iter().any(|s| matches!(s, Source::Strided(..)));
-    let mut out = vec![0.0; total];
+    let mut out = crate::pages::zeroed(total);
 
     let run = |start: usize, chunk: &mut [f64]| -> Option<(Vec<usize>, Error)> {
         let len = chunk.len();
@@ -453,7 +462,7 @@ where
         None
     };
 
-    let first_error = if total < PARALLEL_THRESHOLD {
+    let first_error = if serial(total) {
         run(0, &mut out)
     } else {
         out.par_chunks_mut(CHUNK)

@@ -28,6 +28,7 @@ pub mod relperm;
 pub mod volumetrics;
 pub mod water;
 
+mod pages;
 mod simd;
 
 pub use error::{Error, Result};

@@ -11,7 +11,8 @@
 //! divide, square root, min/max, bit manipulation) is exactly rounded under IEEE 754 in
 //! both instruction sets. The tests compare the two copies bit for bit.
 //!
-//! This module holds the crate's only `unsafe` code: the call of the AVX2 copy, made only
+//! This module and `pages` (huge-page advice for large buffers) hold the crate's only
+//! `unsafe` code; here it is the call of the AVX2 copy, made only
 //! after `is_x86_feature_detected!` has confirmed the features.
 
 /// Whether the processor running this code has AVX2 and FMA (x86-64-v3 floating point).

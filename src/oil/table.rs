@@ -1227,7 +1227,9 @@ where
         .collect();
     let total: usize = rows.iter().sum();
     // 2. The long columns, allocated once, cut into one disjoint piece per fluid.
-    let mut columns: Vec<Vec<f64>> = (0..COLUMNS.len()).map(|_| vec![0.0; total]).collect();
+    let mut columns: Vec<Vec<f64>> = (0..COLUMNS.len())
+        .map(|_| crate::pages::zeroed(total))
+        .collect();
     let mut pieces: Vec<[&mut [f64]; 13]> = Vec::with_capacity(rows.len());
     {
         let mut rest: Vec<&mut [f64]> = columns.iter_mut().map(|c| c.as_mut_slice()).collect();
