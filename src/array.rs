@@ -392,33 +392,90 @@ where
     let strided = sources.iter().any(|s| matches!(s, Source::Strided(..)));
     let mut out = crate::pages::zeroed(total);
 
+    // Lanes `k0..k0 + m` of `chunk` from a batch result: lanes the batch kernel finished
+    // (and whose inputs are not NaN) as they are, NaN for a NaN input, the rest from the
+    // scalar kernel (which reports the error).
+    let finish = |chunk: &mut [f64],
+                  flat: usize,
+                  k0: usize,
+                  m: usize,
+                  xs: &[[f64; BATCH]; N],
+                  ys: &[f64; BATCH],
+                  done: &[bool; BATCH]|
+     -> Option<(Vec<usize>, Error)> {
+        for j in 0..m {
+            let x: [f64; N] = std::array::from_fn(|i| xs[i][j]);
+            chunk[k0 + j] = if x.iter().any(|v| v.is_nan()) {
+                f64::NAN
+            } else if done[j] {
+                ys[j]
+            } else {
+                match scalar(x) {
+                    Ok(v) => v,
+                    Err(e) => match on_error {
+                        OnError::Coerce => f64::NAN,
+                        OnError::Raise => {
+                            let mut at = vec![0usize; shape.len()];
+                            unravel(flat + j, &shape, &mut at);
+                            return Some((at, e));
+                        }
+                    },
+                }
+            };
+        }
+        None
+    };
+    // Whether every lane is final and no input NaN: the common case.
+    let clean = |xs: &[[f64; BATCH]; N], done: &[bool; BATCH]| {
+        let mut clean = true;
+        for l in 0..BATCH {
+            clean &= done[l] & xs.iter().all(|x| !x[l].is_nan());
+        }
+        clean
+    };
+
     let run = |start: usize, chunk: &mut [f64]| -> Option<(Vec<usize>, Error)> {
         let len = chunk.len();
-        let mut multi = vec![0usize; shape.len()];
-        unravel(start, &shape, &mut multi);
         let mut k0 = 0;
+        // Contiguous (or single-value) inputs, whole batches: fixed-size copies only. A loop
+        // of its own, because in one loop with the partial batch below the compiler merges
+        // the two copies into one memcpy call of variable length (measured: 4 % of the
+        // Z-factor time).
+        if !strided {
+            while k0 + BATCH <= len {
+                let flat = start + k0;
+                let xs: [[f64; BATCH]; N] = std::array::from_fn(|i| match &sources[i] {
+                    Source::Direct(d) => {
+                        let mut x = [0.0; BATCH];
+                        x.copy_from_slice(&d[flat..flat + BATCH]);
+                        x
+                    }
+                    src => [src.get(flat, &[]); BATCH],
+                });
+                let mut ys = [0.0; BATCH];
+                let done = batch(&xs, &mut ys);
+                if clean(&xs, &done) {
+                    chunk[k0..k0 + BATCH].copy_from_slice(&ys);
+                } else if let Some(e) = finish(chunk, flat, k0, BATCH, &xs, &ys, &done) {
+                    return Some(e);
+                }
+                k0 += BATCH;
+            }
+        }
+        // Broadcast inputs, and the last, partial batch.
+        let mut multi = vec![0usize; shape.len()];
+        unravel(start + k0, &shape, &mut multi);
         while k0 < len {
             let m = BATCH.min(len - k0);
-            // Lanes per input (structure of arrays): contiguous inputs are one copy each.
+            // Lanes per input (structure of arrays).
             let flat = start + k0;
             let mut xs = [[0.0; BATCH]; N];
-            if strided {
-                for j in 0..m {
-                    for (x, src) in xs.iter_mut().zip(&sources) {
-                        x[j] = src.get(flat + j, &multi);
-                    }
-                    advance(&mut multi, &shape);
-                }
-            } else {
+            for j in 0..m {
                 for (x, src) in xs.iter_mut().zip(&sources) {
-                    match src {
-                        // A full batch is a fixed-size copy (vector moves, no memcpy call).
-                        Source::Direct(d) if m == BATCH => {
-                            x.copy_from_slice(&d[flat..flat + BATCH]);
-                        }
-                        Source::Direct(d) => x[..m].copy_from_slice(&d[flat..flat + m]),
-                        _ => *x = [src.get(flat, &multi); BATCH],
-                    }
+                    x[j] = src.get(flat + j, &multi);
+                }
+                if strided {
+                    advance(&mut multi, &shape);
                 }
             }
             for x in xs.iter_mut() {
@@ -427,35 +484,10 @@ where
             }
             let mut ys = [0.0; BATCH];
             let done = batch(&xs, &mut ys);
-            // The common case: every lane final and no NaN input.
-            let mut clean = m == BATCH;
-            for l in 0..BATCH {
-                clean &= done[l] & xs.iter().all(|x| !x[l].is_nan());
-            }
-            if clean {
+            if m == BATCH && clean(&xs, &done) {
                 chunk[k0..k0 + BATCH].copy_from_slice(&ys);
-                k0 += BATCH;
-                continue;
-            }
-            for j in 0..m {
-                let x: [f64; N] = std::array::from_fn(|i| xs[i][j]);
-                chunk[k0 + j] = if x.iter().any(|v| v.is_nan()) {
-                    f64::NAN
-                } else if done[j] {
-                    ys[j]
-                } else {
-                    match scalar(x) {
-                        Ok(v) => v,
-                        Err(e) => match on_error {
-                            OnError::Coerce => f64::NAN,
-                            OnError::Raise => {
-                                let mut at = vec![0usize; shape.len()];
-                                unravel(flat + j, &shape, &mut at);
-                                return Some((at, e));
-                            }
-                        },
-                    }
-                };
+            } else if let Some(e) = finish(chunk, flat, k0, m, &xs, &ys, &done) {
+                return Some(e);
             }
             k0 += m;
         }
