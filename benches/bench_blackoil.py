@@ -6,9 +6,11 @@ viscosity, Beggs–Robinson (1975) viscosity, apparent co below Pb from closed-f
 Z by Dranchuk–Abou-Kassem (1975) with Sutton (1985) pseudo-criticals, gas viscosity by
 Lee–Gonzalez–Eakin (1966), water Bw by McCain (1990) and viscosity by Meehan (1980).
 
-The two sides run alternately in one process; the script prints the median of the per-round
-ratios (numpy time / stocktank time) for one core (RAYON_NUM_THREADS=1 in a child process)
-and for all cores, plus the largest relative difference between the two results.
+The sides run in rotating order in one process: numpy, stocktank on one thread
+(``stocktank.num_threads(1)``) and stocktank on all cores. The script prints the medians of
+the per-round ratios (numpy time / stocktank time, and one thread / all cores), the ratio
+against the numpy code called once per well (on a tenth of the wells), and the largest
+relative difference between the two results.
 
 Usage: python benches/bench_blackoil.py [--wells 10000] [--points 50] [--rounds 5]
 """
@@ -16,12 +18,11 @@ Usage: python benches/bench_blackoil.py [--wells 10000] [--points 50] [--rounds 
 import argparse
 import os
 import statistics
-import subprocess
-import sys
 import time
 
 import numpy as np
 
+import stocktank as st
 import stocktank.oil as so
 
 R = 10.731577089016  # psia ft3 / (lbmol degR), CODATA 2018 via NIST SP 811 (as the crate)
@@ -137,27 +138,46 @@ def numpy_per_table(p_grid, api, g, t, gor):
     return [numpy_tables(p_grid, api[k : k + 1], g[k : k + 1], t[k : k + 1], gor[k : k + 1]) for k in range(api.size)]
 
 
-def measure(n, points, rounds, per_table=False):
+def measure(n, points, rounds):
+    """Rotating rounds of three sides: numpy, stocktank on one thread, stocktank on all cores;
+    then the per-well numpy loop against stocktank on one thread (the loop is slow, so it
+    runs on a tenth of the wells and its ratio is per table)."""
     args = inputs(n, points)
-    ratios, t_np, t_rs, ratios_loop = [], [], [], []
+
+    def one_thread(a):
+        with st.num_threads(1):
+            return timed(rust_tables, *a)
+
+    sides = {
+        "numpy": lambda: timed(numpy_tables, *args),
+        "one": lambda: one_thread(args),
+        "all": lambda: timed(rust_tables, *args),
+    }
+    t = {k: [] for k in sides}
+    order = list(sides)
+    for r in range(rounds):
+        for k in order[r % 3 :] + order[: r % 3]:
+            t[k].append(sides[k]())
+    few = inputs(max(n // 10, 1), points)
+    loop = []
     for _ in range(rounds):
-        t0 = time.perf_counter()
-        numpy_tables(*args)
-        t1 = time.perf_counter()
-        rust_tables(*args)
-        t2 = time.perf_counter()
-        t_np.append(t1 - t0)
-        t_rs.append(t2 - t1)
-        ratios.append((t1 - t0) / (t2 - t1))
-        if per_table:
-            t3 = time.perf_counter()
-            numpy_per_table(*args)
-            t4 = time.perf_counter()
-            rust_tables(*args)
-            t5 = time.perf_counter()
-            ratios_loop.append((t4 - t3) / (t5 - t4))
-    loop = statistics.median(ratios_loop) if ratios_loop else float("nan")
-    return statistics.median(ratios), statistics.median(t_np), statistics.median(t_rs), loop
+        loop.append(timed(numpy_per_table, *few) / one_thread(few))
+    med = statistics.median
+    return dict(
+        numpy=med(t["numpy"]),
+        one=med(t["one"]),
+        all=med(t["all"]),
+        one_ratio=med([b / a for a, b in zip(t["one"], t["numpy"])]),
+        all_ratio=med([b / a for a, b in zip(t["all"], t["numpy"])]),
+        speedup=med([a / c for a, c in zip(t["one"], t["all"])]),
+        loop_ratio=med(loop),
+    )
+
+
+def timed(f, *args):
+    t0 = time.perf_counter()
+    f(*args)
+    return time.perf_counter() - t0
 
 
 def agreement(n, points):
@@ -175,28 +195,19 @@ def main():
     ap.add_argument("--wells", type=int, default=10000)
     ap.add_argument("--points", type=int, default=50)
     ap.add_argument("--rounds", type=int, default=5)
-    ap.add_argument("--child", action="store_true")
     a = ap.parse_args()
-    if a.child:
-        r, tn, tr, loop = measure(a.wells, a.points, a.rounds, per_table=True)
-        print(f"{r} {tn} {tr} {loop}")
-        return
-    print(f"{a.wells} tables x {a.points} pressures, {a.rounds} alternating rounds, {os.cpu_count()} cores")
+    cores = st.get_num_threads()
+    print(f"{a.wells} tables x {a.points} pressures, {a.rounds} rotating rounds, {cores} threads")
     # The machine is shared: its load says which state (fast or ~2x slower) the run saw.
     print("load average at start (1, 5, 15 min): " + ", ".join(f"{x:.1f}" for x in os.getloadavg()))
     worst = agreement(a.wells, a.points)
     print("largest relative difference numpy vs stocktank per column:")
     print("  " + ", ".join(f"{k} {v:.1e}" for k, v in worst.items()))
-    env = dict(os.environ, RAYON_NUM_THREADS="1")
-    cmd = [sys.executable, __file__, "--child", "--wells", str(a.wells), "--points", str(a.points),
-           "--rounds", str(a.rounds)]
-    one = subprocess.run(cmd, env=env, capture_output=True, text=True, check=True).stdout.split()
-    r1, tn1, tr1, loop1 = map(float, one)
-    rall, tn, tr, _ = measure(a.wells, a.points, a.rounds)
-    print(f"one core : numpy {tn1:.3f} s, stocktank {tr1:.3f} s, median ratio {r1:.1f}x")
-    print(f"one core : numpy called once per well (vectorised over pressures), median ratio {loop1:.1f}x")
-    print(f"all cores: numpy {tn:.3f} s, stocktank {tr:.3f} s, median ratio {rall:.1f}x")
-    print(f"parallel speed-up of stocktank: {tr1 / tr:.2f}x on {os.cpu_count()} cores")
+    m = measure(a.wells, a.points, a.rounds)
+    print(f"one core : numpy {m['numpy']:.3f} s, stocktank {m['one']:.3f} s, median ratio {m['one_ratio']:.1f}x")
+    print(f"one core : numpy called once per well (vectorised over pressures), median ratio {m['loop_ratio']:.1f}x")
+    print(f"all cores: numpy {m['numpy']:.3f} s, stocktank {m['all']:.3f} s, median ratio {m['all_ratio']:.1f}x")
+    print(f"parallel speed-up of stocktank: median ratio {m['speedup']:.2f}x on {cores} threads")
     print("load average at end (1, 5, 15 min): " + ", ".join(f"{x:.1f}" for x in os.getloadavg()))
 
 

@@ -3,18 +3,16 @@ written here, side by side in one process.
 
 Random points with Ppr in [0.2, 15] and Tpr in [1.05, 3]. The two sides alternate and the
 median of the per-round ratios is reported (the machine drifts between a fast and a
-slower state, so absolute ns/point vary; ratios are the measurement). The single-core
-figures come from a child process run with RAYON_NUM_THREADS=1 (stocktank's thread pool
-is fixed at start); the speed-up to all cores is the ratio of the two processes'
-numpy-relative ratios.
+slower state, so absolute ns/point vary; ratios are the measurement). Each round times
+three sides in turn, in a rotating order: stocktank on one thread
+(``stocktank.num_threads(1)``), stocktank on all cores, and numpy; the speed-up to all
+cores is the median of the per-round ratios of the two stocktank sides.
 
 Usage: python benches/bench_zfactor.py [--sizes 1e5,1e6,1e7] [--rounds 5]
        [--methods dak,hall_yarborough]
 """
 
 import argparse
-import os
-import subprocess
 import sys
 import time
 
@@ -84,20 +82,32 @@ def measure(sizes, rounds: int, methods) -> list:
             ours = st.z_factor(ppr[:10000], tpr[:10000], method=method)
             ref = baseline(ppr[:10000], tpr[:10000])
             assert np.max(np.abs(ours / ref - 1)) < 1e-8, method
-            ratios, t_ours, t_base = [], [], []
-            for _ in range(rounds):
-                a = timed(lambda: st.z_factor(ppr, tpr, method=method))
-                b = timed(baseline, ppr, tpr)
-                t_ours.append(a)
-                t_base.append(b)
-                ratios.append(b / a)
+
+            def one_thread():
+                with st.num_threads(1):
+                    return timed(lambda: st.z_factor(ppr, tpr, method=method))
+
+            sides = {
+                "one": one_thread,
+                "all": lambda: timed(lambda: st.z_factor(ppr, tpr, method=method)),
+                "numpy": lambda: timed(baseline, ppr, tpr),
+            }
+            t = {k: [] for k in sides}
+            order = list(sides)
+            for r in range(rounds):
+                for k in order[r % 3 :] + order[: r % 3]:
+                    t[k].append(sides[k]())
+            med = lambda v: float(np.median(v))  # noqa: E731
             rows.append(
                 dict(
                     n=n,
                     method=method,
-                    ours_ns=1e9 * np.median(t_ours) / n,
-                    numpy_ns=1e9 * np.median(t_base) / n,
-                    ratio=float(np.median(ratios)),
+                    one_ns=1e9 * med(t["one"]) / n,
+                    all_ns=1e9 * med(t["all"]) / n,
+                    numpy_ns=1e9 * med(t["numpy"]) / n,
+                    one_ratio=med([b / a for a, b in zip(t["one"], t["numpy"])]),
+                    all_ratio=med([b / a for a, b in zip(t["all"], t["numpy"])]),
+                    speedup=med([a / c for a, c in zip(t["one"], t["all"])]),
                 )
             )
     return rows
@@ -108,33 +118,16 @@ def main() -> int:
     ap.add_argument("--sizes", default="1e5,1e6")
     ap.add_argument("--rounds", type=int, default=5)
     ap.add_argument("--methods", default="dak,hall_yarborough")
-    ap.add_argument("--child", action="store_true", help=argparse.SUPPRESS)
     args = ap.parse_args()
     sizes = [int(float(s)) for s in args.sizes.split(",")]
     rows = measure(sizes, args.rounds, args.methods.split(","))
-    if args.child:
-        for r in rows:
-            print(f"{r['n']} {r['method']} {r['ours_ns']} {r['numpy_ns']} {r['ratio']}")
-        return 0
-    env = dict(os.environ, RAYON_NUM_THREADS="1")
-    out = subprocess.run(
-        [sys.executable, __file__, "--child", "--sizes", args.sizes, "--rounds", str(args.rounds),
-         "--methods", args.methods],
-        env=env, capture_output=True, text=True, check=True,
-    ).stdout.split("\n")
-    single = {}
-    for line in out:
-        if line.strip():
-            n, m, o, b, r = line.split()
-            single[(int(n), m)] = (float(o), float(b), float(r))
-    cores = os.cpu_count()
-    print(f"Z-factor, Ppr 0.2-15, Tpr 1.05-3; median of {args.rounds} alternating rounds; {cores} cores")
+    cores = st.get_num_threads()
+    print(f"Z-factor, Ppr 0.2-15, Tpr 1.05-3; median of {args.rounds} rotating rounds; {cores} threads")
     print(f"{'points':>9} {'method':>16} | {'1 core ns/pt':>12} {'numpy ns/pt':>11} {'x numpy':>8} | "
           f"{'all cores ns/pt':>15} {'x numpy':>8} | {'speed-up':>8}")
     for r in rows:
-        o1, b1, r1 = single[(r["n"], r["method"])]
-        print(f"{r['n']:>9} {r['method']:>16} | {o1:12.1f} {b1:11.1f} {r1:8.1f} | "
-              f"{r['ours_ns']:15.1f} {r['ratio']:8.1f} | {r['ratio'] / r1:8.2f}")
+        print(f"{r['n']:>9} {r['method']:>16} | {r['one_ns']:12.1f} {r['numpy_ns']:11.1f} {r['one_ratio']:8.1f} | "
+              f"{r['all_ns']:15.1f} {r['all_ratio']:8.1f} | {r['speedup']:8.2f}")
     return 0
 
 

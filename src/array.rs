@@ -11,6 +11,9 @@
 //! - runs in parallel on all cores (rayon) above [`PARALLEL_THRESHOLD`] elements, in chunks,
 //!   with no per-element heap allocation; memory is the inputs, the outputs and a small constant
 //!   (plus a contiguous copy of an input that is neither contiguous nor broadcast-free).
+//!   The loops run on the current rayon pool: call inside `rayon::ThreadPool::install` to
+//!   bound the threads (Python: `stocktank.num_threads(n)`). Results do not depend on the
+//!   number of threads (each element is computed alone).
 
 use crate::error::{Error, Result};
 use ndarray::{ArrayD, ArrayViewD, IxDyn};

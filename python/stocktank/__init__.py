@@ -10,6 +10,9 @@ Results are screening estimates: defer to measured laboratory PVT data, licensed
 and the regulations and reserves-reporting rules that apply to you.
 """
 
+import contextlib
+from typing import Iterator, Optional
+
 from . import decline, gas, material_balance, oil, relperm, units, volumetrics, water
 from . import metric  # after the domain modules: it wraps their functions
 from ._core import (
@@ -22,6 +25,8 @@ from ._core import (
     SingularError,
     StocktankError,
     __version__,
+    get_num_threads,
+    set_num_threads,
 )
 from .decline import *  # noqa: F401,F403
 from .gas import *  # noqa: F401,F403
@@ -42,6 +47,9 @@ __all__ = [
     "ConvergenceError",
     "SingularError",
     "OutOfRangeError",
+    "set_num_threads",
+    "get_num_threads",
+    "num_threads",
     "decline",
     "gas",
     "material_balance",
@@ -60,3 +68,21 @@ __all__ += material_balance.__all__
 __all__ += decline.__all__
 __all__ += volumetrics.__all__
 __all__ += units.__all__
+
+
+@contextlib.contextmanager
+def num_threads(n: Optional[int]) -> Iterator[None]:
+    """Run the ``with`` block's stocktank calls on ``n`` threads (``None``: the default),
+    then restore the previous setting. The setting is process-wide (see
+    :func:`set_num_threads`), so threads of your own share it.
+
+    >>> import stocktank as st
+    >>> with st.num_threads(1):
+    ...     st.get_num_threads()
+    1
+    """
+    previous = set_num_threads(n)
+    try:
+        yield
+    finally:
+        set_num_threads(previous)

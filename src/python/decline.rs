@@ -1,6 +1,6 @@
 //! Python bindings of [`crate::decline`]: conversion only.
 
-use super::{In, call, on_error};
+use super::{In, call, detach, on_error};
 use crate::decline::{self as core, FitOptions, Loss, Period, Start};
 use numpy::{AllowTypeChange, IntoPyArray, PyArrayLike1};
 use pyo3::prelude::*;
@@ -326,7 +326,9 @@ fn fit_decline_batch<'py>(
         off.push(o as usize);
     }
     let st = start_time.map(|s| to_vec(&s, "start_time")).transpose()?;
-    let fits = py.detach(move || core::fit_wells(&tv, &qv, &off, st.as_deref(), &opts))?;
+    let fits = detach(py, move || {
+        core::fit_wells(&tv, &qv, &off, st.as_deref(), &opts)
+    })?;
 
     let out = PyDict::new(py);
     macro_rules! col {
@@ -401,8 +403,9 @@ fn forecast_batch<'py>(
     let step_days = step_days.unwrap_or(core::MONTH_STEP_DAYS);
     let (qi, di, b) = (to_vec(&qi, "qi")?, to_vec(&di, "di")?, to_vec(&b, "b")?);
     let (tf, tm) = (to_vec(&t_from, "t_from")?, to_vec(&t_max, "t_max")?);
-    let (idx, rows) =
-        py.detach(move || core::forecast_many(&qi, &di, &b, d_min, &tf, q_limit, &tm, step_days))?;
+    let (idx, rows) = detach(py, move || {
+        core::forecast_many(&qi, &di, &b, d_min, &tf, q_limit, &tm, step_days)
+    })?;
     let out = PyDict::new(py);
     out.set_item(
         "index",

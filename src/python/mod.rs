@@ -11,6 +11,7 @@ use numpy::{AllowTypeChange, IntoPyArray, PyArrayLikeDyn, PyUntypedArrayMethods}
 use pyo3::create_exception;
 use pyo3::exceptions::PyValueError;
 use pyo3::prelude::*;
+use std::sync::{Arc, RwLock};
 
 mod decline;
 mod gas;
@@ -85,6 +86,66 @@ impl From<Error> for PyErr {
     }
 }
 
+/// The pool set by `set_num_threads` (`None`: rayon's global pool, sized by
+/// `RAYON_NUM_THREADS` or the number of cores).
+static POOL: RwLock<Option<Arc<rayon::ThreadPool>>> = RwLock::new(None);
+
+/// The pool of [`POOL`], if one is set. A poisoned lock still holds a valid value (the
+/// writers only swap an `Option`), so it is read through.
+fn current_pool() -> Option<Arc<rayon::ThreadPool>> {
+    POOL.read().unwrap_or_else(|e| e.into_inner()).clone()
+}
+
+/// Release the GIL and run `f`, inside the pool set by `set_num_threads` if there is one
+/// (every parallel loop of the core then uses that pool's threads).
+pub(crate) fn detach<T, F>(py: Python<'_>, f: F) -> T
+where
+    F: FnOnce() -> T + Send,
+    T: Send,
+{
+    let pool = current_pool();
+    py.detach(move || match pool {
+        Some(p) => p.install(f),
+        None => f(),
+    })
+}
+
+/// Set the number of threads stocktank's parallel loops use, for the whole process;
+/// `None` goes back to the default (the `RAYON_NUM_THREADS` environment variable, else
+/// one thread per core). Returns the previous setting (`None` for the default).
+#[pyfunction]
+#[pyo3(signature = (n))]
+fn set_num_threads(n: Option<i64>) -> PyResult<Option<usize>> {
+    let pool = match n {
+        None => None,
+        Some(k) if k >= 1 => Some(Arc::new(
+            rayon::ThreadPoolBuilder::new()
+                .num_threads(usize::try_from(k).unwrap_or(usize::MAX))
+                .thread_name(|i| format!("stocktank-{i}"))
+                .build()
+                .map_err(|e| {
+                    pyo3::exceptions::PyRuntimeError::new_err(format!(
+                        "could not start {k} threads: {e}"
+                    ))
+                })?,
+        )),
+        Some(k) => {
+            return Err(
+                Error::invalid("n", k as f64, "must be a whole number >= 1, or None").into(),
+            );
+        }
+    };
+    let mut slot = POOL.write().unwrap_or_else(|e| e.into_inner());
+    let previous = std::mem::replace(&mut *slot, pool);
+    Ok(previous.map(|p| p.current_num_threads()))
+}
+
+/// The number of threads stocktank's parallel loops use now.
+#[pyfunction]
+fn get_num_threads() -> usize {
+    current_pool().map_or_else(rayon::current_num_threads, |p| p.current_num_threads())
+}
+
 /// Any array-like input (float, int, list, any-dtype array), converted to float64.
 pub(crate) type In<'py> = PyArrayLikeDyn<'py, f64, AllowTypeChange>;
 
@@ -115,7 +176,7 @@ where
 {
     let scalar = inputs.iter().all(|a| a.ndim() == 0);
     let views = inputs.map(|a| a.as_array());
-    let out = py.detach(move || f(views))?;
+    let out = detach(py, move || f(views))?;
     to_py(py, out, scalar)
 }
 
@@ -131,7 +192,7 @@ where
 {
     let scalar = inputs.iter().all(|a| a.ndim() == 0);
     let views = inputs.map(|a| a.as_array());
-    let out = py.detach(move || f(views))?;
+    let out = detach(py, move || f(views))?;
     if scalar && out.len() == 1 {
         let v = *out.iter().next().expect("one element");
         Ok(pyo3::types::PyBool::new(py, v)
@@ -155,7 +216,7 @@ where
 {
     let scalar = inputs.iter().all(|a| a.ndim() == 0);
     let views = inputs.map(|a| a.as_array());
-    let outs = py.detach(move || f(views))?;
+    let outs = detach(py, move || f(views))?;
     outs.into_iter().map(|o| to_py(py, o, scalar)).collect()
 }
 
@@ -174,6 +235,8 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add("ConvergenceError", py.get_type::<ConvergenceError>())?;
     m.add("SingularError", py.get_type::<SingularError>())?;
     m.add("OutOfRangeError", py.get_type::<OutOfRangeError>())?;
+    m.add_function(wrap_pyfunction!(set_num_threads, m)?)?;
+    m.add_function(wrap_pyfunction!(get_num_threads, m)?)?;
     relperm::register(m)?;
     gas::register(m)?;
     oil::register(m)?;

@@ -3,7 +3,7 @@
 
 use super::gas::Gas as PyGas;
 use super::water::Water as PyWater;
-use super::{In, call, on_error};
+use super::{In, call, detach, on_error};
 use crate::array::{OnError, broadcast_shape, lift};
 use crate::error::Error;
 use crate::gas::Gas as CoreGas;
@@ -781,7 +781,7 @@ impl Oil {
     ) -> PyResult<Bound<'py, PyDict>> {
         let o = self.0;
         let (g, w) = (gas.map(|g| g.0), water.map(|w| w.0.clone()));
-        let t = py.detach(move || build_one(&o, g.as_ref(), w.as_ref(), &p))?;
+        let t = detach(py, move || build_one(&o, g.as_ref(), w.as_ref(), &p))?;
         table_dict(py, t)
     }
     /// The consistency check of the table on grid p: a list of (p_psia, rule, detail).
@@ -796,7 +796,9 @@ impl Oil {
     ) -> PyResult<Bound<'py, PyList>> {
         let o = self.0;
         let (g, w) = (gas.map(|g| g.0), water.map(|w| w.0.clone()));
-        let v = py.detach(move || build_one(&o, g.as_ref(), w.as_ref(), &p).map(|t| t.check()))?;
+        let v = detach(py, move || {
+            build_one(&o, g.as_ref(), w.as_ref(), &p).map(|t| t.check())
+        })?;
         let items: Vec<(f64, &'static str, String)> = v
             .into_iter()
             .map(|x| (x.p_psia, x.rule.name(), x.detail))
@@ -951,7 +953,7 @@ fn black_oil_tables<'py>(
         opt(&separator_t, &nan),
     ];
     let sal = opt(&salinity_wt_pct, &zero);
-    let long = py.detach(move || -> crate::Result<_> {
+    let long = detach(py, move || -> crate::Result<_> {
         let names = [
             "api",
             "gas_sg",

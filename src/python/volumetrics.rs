@@ -1,7 +1,7 @@
 //! Python bindings of [`crate::volumetrics`]: conversion only.
 
 use super::relperm::CoreyOilWater as PyCorey;
-use super::{In, call, call_multi, on_error};
+use super::{In, call, call_multi, detach, on_error};
 use crate::array::{lift, lift_multi};
 use crate::error::Error;
 use crate::volumetrics::{
@@ -176,7 +176,7 @@ fn welge_front<'py>(
     gravity: f64,
 ) -> PyResult<Bound<'py, PyDict>> {
     let f = flow(&relperm, mu_o, mu_w, swi, gravity)?;
-    let w = py.detach(move || f.welge())?;
+    let w = detach(py, move || f.welge())?;
     let d = PyDict::new(py);
     d.set_item("sw_front", w.sw_front)?;
     d.set_item("fw_front", w.fw_front)?;
@@ -204,7 +204,7 @@ fn waterflood_displacement<'py>(
 ) -> PyResult<Bound<'py, PyTuple>> {
     let oe = on_error(errors)?;
     let f = flow(&relperm, mu_o, mu_w, swi, gravity)?;
-    let w = py.detach(move || f.welge())?;
+    let w = detach(py, move || f.welge())?;
     let outs = call_multi(py, [&pv_injected], move |[q]| {
         lift_multi(["pv_injected"], [q], oe, |[q]| {
             let s = f.state(&w, q)?;
@@ -408,7 +408,7 @@ impl Distribution {
     #[pyo3(signature = (n, *, seed = 0, stream = 0))]
     fn sample<'py>(&self, py: Python<'py>, n: usize, seed: u64, stream: u64) -> Bound<'py, PyAny> {
         let d = self.0;
-        let x = py.detach(move || d.sample(n, seed, stream));
+        let x = detach(py, move || d.sample(n, seed, stream));
         x.into_pyarray(py).into_any()
     }
     /// The canonical constructor keywords.
@@ -567,8 +567,9 @@ fn probabilistic_in_place<'py>(
             Some(Correlation::from_pairs(&pairs)?)
         }
     };
-    let sim =
-        py.detach(move || v::probabilistic_in_place(fl, &inputs, corr.as_ref(), trials, seed))?;
+    let sim = detach(py, move || {
+        v::probabilistic_in_place(fl, &inputs, corr.as_ref(), trials, seed)
+    })?;
     let out = PyDict::new(py);
     out.set_item("fluid", fluid)?;
     out.set_item("unit", if fl == Fluid::Oil { "STB" } else { "scf" })?;
@@ -611,7 +612,7 @@ fn probabilistic_in_place<'py>(
 fn summarize<'py>(py: Python<'py>, samples: In<'py>) -> PyResult<Bound<'py, PyDict>> {
     let view = samples.as_array();
     let data: Vec<f64> = view.iter().copied().collect();
-    let s = py.detach(move || v::summarize(&data))?;
+    let s = detach(py, move || v::summarize(&data))?;
     summary(py, &s)
 }
 

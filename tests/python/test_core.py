@@ -61,3 +61,30 @@ def test_critical_gas_saturation_blocks_flow():
     # Gas does not flow below its critical saturation (common practice, no source).
     kr = st.CoreyGasOil(swc=0.2, sgc=0.05, sorg=0.1)
     assert np.all(kr.krg(np.linspace(0.0, 0.05, 11)) == 0.0)
+
+
+def test_thread_count_setting_and_results_independent_of_it():
+    rng = np.random.default_rng(7)
+    ppr = rng.uniform(0.2, 15.0, 100_000)  # above the parallel threshold
+    tpr = rng.uniform(1.05, 3.0, 100_000)
+    default = st.z_factor(ppr, tpr)
+    with st.num_threads(1):
+        assert st.get_num_threads() == 1
+        one = st.z_factor(ppr, tpr)
+        with st.num_threads(2):
+            assert st.get_num_threads() == 2
+            two = st.z_factor(ppr, tpr)
+        assert st.get_num_threads() == 1
+    # The same bits on any number of threads: each element is computed alone.
+    assert np.array_equal(one, default) and np.array_equal(two, default)
+    assert st.set_num_threads(3) is None  # the default was in force
+    assert st.set_num_threads(None) == 3
+    assert st.get_num_threads() >= 1
+
+
+def test_thread_count_must_be_positive():
+    with pytest.raises(st.InvalidArgumentError, match=r"\bn\b.*0"):
+        st.set_num_threads(0)
+    with pytest.raises(st.InvalidArgumentError, match=r"-2"):
+        st.set_num_threads(-2)
+    assert st.set_num_threads(None) is None  # a failed call left the setting alone
