@@ -110,6 +110,31 @@ where
     })
 }
 
+/// Pools made by `set_num_threads`, one per thread count, kept so that switching back and
+/// forth (a `with num_threads(1):` block in a loop) does not start new threads each time.
+static MADE: std::sync::Mutex<Vec<Arc<rayon::ThreadPool>>> = std::sync::Mutex::new(Vec::new());
+
+/// A pool of `k` threads: one made before, or a new one.
+fn pool_of(k: usize) -> PyResult<Arc<rayon::ThreadPool>> {
+    let mut made = MADE.lock().unwrap_or_else(|e| e.into_inner());
+    if let Some(p) = made.iter().find(|p| p.current_num_threads() == k) {
+        return Ok(p.clone());
+    }
+    let p = Arc::new(
+        rayon::ThreadPoolBuilder::new()
+            .num_threads(k)
+            .thread_name(|i| format!("stocktank-{i}"))
+            .build()
+            .map_err(|e| {
+                pyo3::exceptions::PyRuntimeError::new_err(format!(
+                    "could not start {k} threads: {e}"
+                ))
+            })?,
+    );
+    made.push(p.clone());
+    Ok(p)
+}
+
 /// Set the number of threads stocktank's parallel loops use, for the whole process;
 /// `None` goes back to the default (the `RAYON_NUM_THREADS` environment variable, else
 /// one thread per core). Returns the previous setting (`None` for the default).
@@ -118,17 +143,7 @@ where
 fn set_num_threads(n: Option<i64>) -> PyResult<Option<usize>> {
     let pool = match n {
         None => None,
-        Some(k) if k >= 1 => Some(Arc::new(
-            rayon::ThreadPoolBuilder::new()
-                .num_threads(usize::try_from(k).unwrap_or(usize::MAX))
-                .thread_name(|i| format!("stocktank-{i}"))
-                .build()
-                .map_err(|e| {
-                    pyo3::exceptions::PyRuntimeError::new_err(format!(
-                        "could not start {k} threads: {e}"
-                    ))
-                })?,
-        )),
+        Some(k) if k >= 1 => Some(pool_of(usize::try_from(k).unwrap_or(usize::MAX))?),
         Some(k) => {
             return Err(
                 Error::invalid("n", k as f64, "must be a whole number >= 1, or None").into(),
