@@ -9,7 +9,7 @@ Lee–Gonzalez–Eakin (1966), water Bw by McCain (1990) and viscosity by Meehan
 The sides run in rotating order in one process: numpy, stocktank on one thread
 (``stocktank.num_threads(1)``) and stocktank on all cores. The script prints the medians of
 the per-round ratios (numpy time / stocktank time, and one thread / all cores), the ratio
-against the numpy code called once per well (on a tenth of the wells), and the largest
+against the numpy code called once per well, and the largest
 relative difference between the two results.
 
 Usage: python benches/bench_blackoil.py [--wells 10000] [--points 50] [--rounds 5]
@@ -140,8 +140,7 @@ def numpy_per_table(p_grid, api, g, t, gor):
 
 def measure(n, points, rounds):
     """Rotating rounds of three sides: numpy, stocktank on one thread, stocktank on all cores;
-    then the per-well numpy loop against stocktank on one thread (the loop is slow, so it
-    runs on a tenth of the wells and its ratio is per table)."""
+    then the per-well numpy loop against stocktank on one thread."""
     args = inputs(n, points)
 
     def one_thread(a):
@@ -158,10 +157,9 @@ def measure(n, points, rounds):
     for r in range(rounds):
         for k in order[r % 3 :] + order[: r % 3]:
             t[k].append(sides[k]())
-    few = inputs(max(n // 10, 1), points)
     loop = []
     for _ in range(rounds):
-        loop.append(timed(numpy_per_table, *few) / one_thread(few))
+        loop.append(timed(numpy_per_table, *args) / one_thread(args))
     med = statistics.median
     return dict(
         numpy=med(t["numpy"]),
