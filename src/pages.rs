@@ -23,20 +23,21 @@
 #[cfg(target_os = "linux")]
 const HUGE_PAGE: usize = 2 << 20;
 
-/// A vector of `n` zeros whose memory is advised for huge pages when it spans at least one
+/// A vector of `n` zeros (`T::default()`, all-zero bytes for the number types it is used
+/// with) whose memory is advised for huge pages when it spans at least one
 /// whole aligned 2 MiB page (buffers from 2 MiB up; smaller ones are left alone).
 ///
 /// The zeros come from the allocator's `calloc` path, which for large sizes maps fresh
 /// memory without touching it, so the advice is in place before the first write.
-pub(crate) fn zeroed(n: usize) -> Vec<f64> {
-    let v = vec![0.0; n];
+pub(crate) fn zeroed<T: Copy + Default>(n: usize) -> Vec<T> {
+    let v = vec![T::default(); n];
     advise_huge(&v);
     v
 }
 
 /// Advise the kernel to back the 2 MiB-aligned interior of `buf` with huge pages.
 #[cfg(target_os = "linux")]
-fn advise_huge(buf: &[f64]) {
+fn advise_huge<T>(buf: &[T]) {
     let start = buf.as_ptr() as usize;
     let end = start + std::mem::size_of_val(buf);
     let first = start.next_multiple_of(HUGE_PAGE);
@@ -60,7 +61,7 @@ fn advise_huge(buf: &[f64]) {
 
 /// Elsewhere the buffer keeps the operating system's default pages.
 #[cfg(not(target_os = "linux"))]
-fn advise_huge(_buf: &[f64]) {}
+fn advise_huge<T>(_buf: &[T]) {}
 
 #[cfg(test)]
 mod tests {
@@ -69,7 +70,7 @@ mod tests {
     #[test]
     fn zeroed_is_zeros_of_any_size() {
         for n in [0, 1, 1000, (4 << 20) / 8 + 3] {
-            let v = zeroed(n);
+            let v: Vec<f64> = zeroed(n);
             assert_eq!(v.len(), n);
             assert!(v.iter().all(|&x| x == 0.0));
         }

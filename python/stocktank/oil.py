@@ -184,7 +184,9 @@ def black_oil_tables_arrays(
     """Black-oil tables of many wells as numpy arrays (long format): see
     :func:`black_oil_tables` for the arguments. Returns the dict of ``_core.black_oil_tables``:
     columns (table names, units in :data:`TABLE_UNITS`), ``well`` (row index of the well),
-    ``is_pb``, ``pb`` and ``rsi`` per well, ``violations`` and ``errors``."""
+    ``is_pb``, ``pb`` and ``rsi`` per well, ``violations`` and ``errors``. The 13 value
+    columns are rows of one (13, n) array, so a column kept alone keeps the whole block in
+    memory; ``.copy()`` it to let the rest go."""
     grid = [float(x) for x in np.asarray(p, dtype=float).ravel()]
     return dict(_black_oil_tables(grid, api, gas_sg, temperature_f, **options))
 

@@ -1019,8 +1019,14 @@ fn black_oil_tables<'py>(
     let d = PyDict::new(py);
     d.set_item("well", long.well.into_pyarray(py))?;
     d.set_item("is_pb", long.is_pb.into_pyarray(py))?;
-    for ((name, _), col) in COLUMNS.iter().zip(long.columns) {
-        d.set_item(*name, col.into_pyarray(py))?;
+    // One block, column after column (see `Columns`): each column is a row view of it.
+    let (block, rows) = long.columns.into_block();
+    let block = numpy::PyArrayMethods::reshape(
+        &numpy::PyArray1::from_vec(py, block),
+        [COLUMNS.len(), rows],
+    )?;
+    for (j, (name, _)) in COLUMNS.iter().enumerate() {
+        d.set_item(*name, block.get_item(j)?)?;
     }
     d.set_item("pb", long.pb.into_pyarray(py))?;
     d.set_item("rsi", long.rsi.into_pyarray(py))?;
