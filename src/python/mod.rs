@@ -11,13 +11,13 @@ use numpy::{AllowTypeChange, IntoPyArray, PyArrayLikeDyn, PyUntypedArrayMethods}
 use pyo3::create_exception;
 use pyo3::exceptions::PyValueError;
 use pyo3::prelude::*;
-use std::sync::{Arc, RwLock};
 
 mod decline;
 mod gas;
 mod material_balance;
 mod oil;
 mod relperm;
+mod threads;
 mod units;
 mod volumetrics;
 mod water;
@@ -86,80 +86,7 @@ impl From<Error> for PyErr {
     }
 }
 
-/// The pool set by `set_num_threads` (`None`: rayon's global pool, sized by
-/// `RAYON_NUM_THREADS` or the number of cores).
-static POOL: RwLock<Option<Arc<rayon::ThreadPool>>> = RwLock::new(None);
-
-/// The pool of [`POOL`], if one is set. A poisoned lock still holds a valid value (the
-/// writers only swap an `Option`), so it is read through.
-fn current_pool() -> Option<Arc<rayon::ThreadPool>> {
-    POOL.read().unwrap_or_else(|e| e.into_inner()).clone()
-}
-
-/// Release the GIL and run `f`, inside the pool set by `set_num_threads` if there is one
-/// (every parallel loop of the core then uses that pool's threads).
-pub(crate) fn detach<T, F>(py: Python<'_>, f: F) -> T
-where
-    F: FnOnce() -> T + Send,
-    T: Send,
-{
-    let pool = current_pool();
-    py.detach(move || match pool {
-        Some(p) => p.install(f),
-        None => f(),
-    })
-}
-
-/// Pools made by `set_num_threads`, one per thread count, kept so that switching back and
-/// forth (a `with num_threads(1):` block in a loop) does not start new threads each time.
-static MADE: std::sync::Mutex<Vec<Arc<rayon::ThreadPool>>> = std::sync::Mutex::new(Vec::new());
-
-/// A pool of `k` threads: one made before, or a new one.
-fn pool_of(k: usize) -> PyResult<Arc<rayon::ThreadPool>> {
-    let mut made = MADE.lock().unwrap_or_else(|e| e.into_inner());
-    if let Some(p) = made.iter().find(|p| p.current_num_threads() == k) {
-        return Ok(p.clone());
-    }
-    let p = Arc::new(
-        rayon::ThreadPoolBuilder::new()
-            .num_threads(k)
-            .thread_name(|i| format!("stocktank-{i}"))
-            .build()
-            .map_err(|e| {
-                pyo3::exceptions::PyRuntimeError::new_err(format!(
-                    "could not start {k} threads: {e}"
-                ))
-            })?,
-    );
-    made.push(p.clone());
-    Ok(p)
-}
-
-/// Set the number of threads stocktank's parallel loops use, for the whole process;
-/// `None` goes back to the default (the `RAYON_NUM_THREADS` environment variable, else
-/// one thread per core). Returns the previous setting (`None` for the default).
-#[pyfunction]
-#[pyo3(signature = (n))]
-fn set_num_threads(n: Option<i64>) -> PyResult<Option<usize>> {
-    let pool = match n {
-        None => None,
-        Some(k) if k >= 1 => Some(pool_of(usize::try_from(k).unwrap_or(usize::MAX))?),
-        Some(k) => {
-            return Err(
-                Error::invalid("n", k as f64, "must be a whole number >= 1, or None").into(),
-            );
-        }
-    };
-    let mut slot = POOL.write().unwrap_or_else(|e| e.into_inner());
-    let previous = std::mem::replace(&mut *slot, pool);
-    Ok(previous.map(|p| p.current_num_threads()))
-}
-
-/// The number of threads stocktank's parallel loops use now.
-#[pyfunction]
-fn get_num_threads() -> usize {
-    current_pool().map_or_else(rayon::current_num_threads, |p| p.current_num_threads())
-}
+pub(crate) use threads::detach;
 
 /// Any array-like input (float, int, list, any-dtype array), converted to float64.
 pub(crate) type In<'py> = PyArrayLikeDyn<'py, f64, AllowTypeChange>;
@@ -250,8 +177,7 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add("ConvergenceError", py.get_type::<ConvergenceError>())?;
     m.add("SingularError", py.get_type::<SingularError>())?;
     m.add("OutOfRangeError", py.get_type::<OutOfRangeError>())?;
-    m.add_function(wrap_pyfunction!(set_num_threads, m)?)?;
-    m.add_function(wrap_pyfunction!(get_num_threads, m)?)?;
+    threads::register(m)?;
     relperm::register(m)?;
     gas::register(m)?;
     oil::register(m)?;

@@ -88,3 +88,28 @@ def test_thread_count_must_be_positive():
     with pytest.raises(st.InvalidArgumentError, match=r"-2"):
         st.set_num_threads(-2)
     assert st.set_num_threads(None) is None  # a failed call left the setting alone
+
+
+def _parallel_work_in_child(_):
+    # Above the parallel thresholds of the array layer, the table builder and Monte Carlo.
+    z = st.z_factor(np.linspace(0.3, 10.0, 100_000), 1.5)
+    t = st.black_oil_tables_arrays(np.linspace(500.0, 4000.0, 20), np.full(300, 35.0), 0.75, 180.0, gor=500.0)
+    mc = st.probabilistic_in_place(
+        "oil", area=st.Distribution("triangular", low=1.0, mode=2.0, high=3.0), thickness=10.0,
+        porosity=0.2, sw=0.3, fvf=1.2, trials=200_000, seed=1,
+    )
+    return float(z.sum()), float(np.sum(t["bo"])), float(mc["summary"]["p50"]), st.get_num_threads()
+
+
+@pytest.mark.skipif(not hasattr(__import__("os"), "fork"), reason="needs fork")
+def test_forked_processes_start_their_own_threads():
+    # Python's multiprocessing forks by default on Linux: a child inherits the parent's thread
+    # pool bookkeeping but not its threads; work sent there would wait forever.
+    import multiprocessing as mp
+
+    here = _parallel_work_in_child(0)  # the parent's pools exist before the fork
+    with st.num_threads(1):
+        with mp.get_context("fork").Pool(2) as pool:
+            got = pool.map_async(_parallel_work_in_child, [0, 1]).get(timeout=120)
+    assert [g[:3] for g in got] == [here[:3]] * 2
+    assert [g[3] for g in got] == [1, 1]  # the setting is inherited
