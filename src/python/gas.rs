@@ -2,7 +2,7 @@
 //! releases the GIL and calls a core array function (or a scalar kernel lifted by
 //! [`crate::array::lift`]).
 
-use super::{In, call, call_bool, call_multi, on_error};
+use super::{In, call, call_bool, call_multi, detach, on_error, to_py};
 use crate::array::{OnError, lift};
 use crate::gas::{
     self as core, Gas as CoreGas, GasProperty, GravityCorrelation, ImpurityCorrection,
@@ -572,7 +572,12 @@ impl Gas {
     ) -> PyResult<Py<PyAny>> {
         let on = on_error(errors)?;
         let g = self.0;
-        call(py, [&p_psia], move |[p]| g.pseudo_pressure(p, t_f, on))
+        // Not elementwise: the integrals between the sorted pressures run in parallel at
+        // any size, so always in the pool.
+        let p = p_psia.as_array();
+        let scalar = p.ndim() == 0;
+        let out = detach(py, move || g.pseudo_pressure(p, t_f, on))?;
+        to_py(py, out, scalar)
     }
     /// Per element, whether the inputs lie in the published ranges of the gas's methods:
     /// a dict of boolean arrays with keys ``pseudo_critical``, ``z_factor``, ``viscosity``.

@@ -339,7 +339,7 @@ impl Aquifer {
     ) -> PyResult<Bound<'py, PyAny>> {
         let (t, pp) = (vec1("t_days", &t_days)?, vec1("p", &p)?);
         let a = self.0;
-        let we = detach(py, move || a.influx(&t, &pp, p_initial))?;
+        let we = py.detach(move || a.influx(&t, &pp, p_initial))?;
         Ok(arr(py, we))
     }
     fn __repr__(&self) -> String {
@@ -599,7 +599,7 @@ fn oil_mbe_terms<'py>(
         &t_days, &p, &np_stb, &gp_scf, &wp_stb, &wi_stb, &gi_scf, p_initial, swi, cw, cf,
     )?;
     let table = &pvt.inner;
-    let t = detach(py, || mb::oil_mbe_terms(table, &hs.h, &hs.r))?;
+    let t = py.detach(|| mb::oil_mbe_terms(table, &hs.h, &hs.r))?;
     crate::error::non_negative("m", m)?;
     terms_dict(py, t, m)
 }
@@ -679,7 +679,7 @@ fn havlena_odeh_fit<'py>(
     };
     let table = &pvt.inner;
     let sel = select;
-    let f = detach(py, || {
+    let f = py.detach(|| {
         let t = mb::oil_mbe_terms(table, &hs.h, &hs.r)?;
         mb::havlena_odeh_fit(&t, c, sel.as_deref())
     })?;
@@ -730,9 +730,7 @@ fn campbell_plot<'py>(
         &t_days, &p, &np_stb, &gp_scf, &wp_stb, &wi_stb, &gi_scf, p_initial, swi, cw, cf,
     )?;
     let table = &pvt.inner;
-    let y = detach(py, || {
-        mb::campbell_plot(&mb::oil_mbe_terms(table, &hs.h, &hs.r)?, m)
-    })?;
+    let y = py.detach(|| mb::campbell_plot(&mb::oil_mbe_terms(table, &hs.h, &hs.r)?, m))?;
     let d = PyDict::new(py);
     d.set_item("t_days", arr(py, hs.h.t_days.clone()))?;
     d.set_item("np_stb", arr(py, hs.h.np.clone()))?;
@@ -769,9 +767,7 @@ fn drive_indices<'py>(
     )?;
     let we = opt_vec1("we", &we)?;
     let table = &pvt.inner;
-    let d = detach(py, || {
-        mb::drive_indices(&mb::oil_mbe_terms(table, &hs.h, &hs.r)?, n, m, &we)
-    })?;
+    let d = py.detach(|| mb::drive_indices(&mb::oil_mbe_terms(table, &hs.h, &hs.r)?, n, m, &we))?;
     indices_dict(py, d)
 }
 
@@ -802,9 +798,8 @@ fn classify_drive<'py>(
         &t_days, &p, &np_stb, &gp_scf, &wp_stb, &wi_stb, &gi_scf, p_initial, swi, cw, cf,
     )?;
     let table = &pvt.inner;
-    let c = detach(py, || {
-        mb::classify_drive(&mb::oil_mbe_terms(table, &hs.h, &hs.r)?, m, tolerance)
-    })?;
+    let c =
+        py.detach(|| mb::classify_drive(&mb::oil_mbe_terms(table, &hs.h, &hs.r)?, m, tolerance))?;
     let d = PyDict::new(py);
     d.set_item("mechanism", c.mechanism)?;
     d.set_item("evidence", PyList::new(py, c.evidence)?)?;
@@ -973,7 +968,7 @@ fn history_match<'py>(
         confidence,
     )?;
     let table = &pvt.inner;
-    let f = detach(py, || mb::history_match(table, &hs.h, &hs.r, &opts))?;
+    let f = py.detach(|| mb::history_match(table, &hs.h, &hs.r, &opts))?;
     match_dict(py, f)
 }
 
@@ -1136,10 +1131,9 @@ fn pz_fit<'py>(
     pz_abandon: Option<f64>,
 ) -> PyResult<Bound<'py, PyDict>> {
     let (g, pp, zz) = (vec1("gp_scf", &gp_scf)?, vec1("p", &p)?, vec1("z", &z)?);
-    let f = detach(py, || {
-        mb::pz_fit(&g, &pp, &zz, select.as_deref(), pz_abandon)
-    })
-    .map_err(rename_gas)?;
+    let f = py
+        .detach(|| mb::pz_fit(&g, &pp, &zz, select.as_deref(), pz_abandon))
+        .map_err(rename_gas)?;
     gas_dict(py, f)
 }
 
@@ -1191,10 +1185,9 @@ fn pz_fit_abnormal<'py>(
             .into());
         }
     };
-    let f = detach(py, || {
-        mb::pz_fit_abnormal(&g, &pp, &zz, p_initial, swi, cw, cf, select.as_deref(), ab)
-    })
-    .map_err(rename_gas)?;
+    let f = py
+        .detach(|| mb::pz_fit_abnormal(&g, &pp, &zz, p_initial, swi, cw, cf, select.as_deref(), ab))
+        .map_err(rename_gas)?;
     gas_dict(py, f)
 }
 
@@ -1219,20 +1212,21 @@ fn cole_plot<'py>(
     let (g, pp, zz) = (vec1("gp_scf", &gp_scf)?, vec1("p", &p)?, vec1("z", &z)?);
     let wp = opt_vec1("wp_stb", &wp_stb)?;
     let sc = StandardConditions::new(p_sc, t_sc)?;
-    let y = detach(py, || {
-        mb::cole_plot(
-            &g,
-            &pp,
-            &zz,
-            &wp,
-            bw,
-            p_initial,
-            z_initial,
-            temperature_f,
-            sc,
-        )
-    })
-    .map_err(rename_gas)?;
+    let y = py
+        .detach(|| {
+            mb::cole_plot(
+                &g,
+                &pp,
+                &zz,
+                &wp,
+                bw,
+                p_initial,
+                z_initial,
+                temperature_f,
+                sc,
+            )
+        })
+        .map_err(rename_gas)?;
     Ok(arr(py, y))
 }
 
@@ -1262,23 +1256,24 @@ fn gas_water_drive_fit<'py>(
     let wp = opt_vec1("wp_stb", &wp_stb)?;
     let sc = StandardConditions::new(p_sc, t_sc)?;
     let model = aquifer.0.model;
-    let f = detach(py, || {
-        mb::gas_water_drive_fit(
-            &t,
-            &g,
-            &pp,
-            &zz,
-            &wp,
-            bw,
-            p_initial,
-            z_initial,
-            temperature_f,
-            sc,
-            model,
-            select.as_deref(),
-        )
-    })
-    .map_err(rename_gas)?;
+    let f = py
+        .detach(|| {
+            mb::gas_water_drive_fit(
+                &t,
+                &g,
+                &pp,
+                &zz,
+                &wp,
+                bw,
+                p_initial,
+                z_initial,
+                temperature_f,
+                sc,
+                model,
+                select.as_deref(),
+            )
+        })
+        .map_err(rename_gas)?;
     gas_dict(py, f)
 }
 
@@ -1375,9 +1370,7 @@ fn gas_history_match<'py>(
         tolerance,
         confidence,
     };
-    let f = detach(py, || {
-        mb::gas_history_match(&table, &history, &reservoir, &opts)
-    })?;
+    let f = py.detach(|| mb::gas_history_match(&table, &history, &reservoir, &opts))?;
     gas_match_dict(py, f)
 }
 
@@ -1400,9 +1393,7 @@ fn muskat_forecast<'py>(
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
-    let f = detach(py, || {
-        mb::muskat_forecast(table, &k, p_bubble, p_end, n_steps)
-    })?;
+    let f = py.detach(|| mb::muskat_forecast(table, &k, p_bubble, p_end, n_steps))?;
     forecast_dict(py, f)
 }
 
@@ -1436,9 +1427,7 @@ fn tarner_forecast<'py>(
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
-    let f = detach(py, || {
-        mb::tarner_forecast(table, &k, p_bubble, p_end, n_steps)
-    })?;
+    let f = py.detach(|| mb::tarner_forecast(table, &k, p_bubble, p_end, n_steps))?;
     let d = forecast_dict(py, f.forecast)?;
     let it: Vec<u64> = f.iterations.iter().map(|&v| v as u64).collect();
     d.set_item("iterations", it.into_pyarray(py))?;

@@ -781,7 +781,7 @@ impl Oil {
     ) -> PyResult<Bound<'py, PyDict>> {
         let o = self.0;
         let (g, w) = (gas.map(|g| g.0), water.map(|w| w.0.clone()));
-        let t = detach(py, move || build_one(&o, g.as_ref(), w.as_ref(), &p))?;
+        let t = py.detach(move || build_one(&o, g.as_ref(), w.as_ref(), &p))?;
         table_dict(py, t)
     }
     /// The consistency check of the table on grid p: a list of (p_psia, rule, detail).
@@ -796,9 +796,7 @@ impl Oil {
     ) -> PyResult<Bound<'py, PyList>> {
         let o = self.0;
         let (g, w) = (gas.map(|g| g.0), water.map(|w| w.0.clone()));
-        let v = detach(py, move || {
-            build_one(&o, g.as_ref(), w.as_ref(), &p).map(|t| t.check())
-        })?;
+        let v = py.detach(move || build_one(&o, g.as_ref(), w.as_ref(), &p).map(|t| t.check()))?;
         let items: Vec<(f64, &'static str, String)> = v
             .into_iter()
             .map(|x| (x.p_psia, x.rule.name(), x.detail))

@@ -176,7 +176,7 @@ fn welge_front<'py>(
     gravity: f64,
 ) -> PyResult<Bound<'py, PyDict>> {
     let f = flow(&relperm, mu_o, mu_w, swi, gravity)?;
-    let w = detach(py, move || f.welge())?;
+    let w = py.detach(move || f.welge())?;
     let d = PyDict::new(py);
     d.set_item("sw_front", w.sw_front)?;
     d.set_item("fw_front", w.fw_front)?;
@@ -204,7 +204,7 @@ fn waterflood_displacement<'py>(
 ) -> PyResult<Bound<'py, PyTuple>> {
     let oe = on_error(errors)?;
     let f = flow(&relperm, mu_o, mu_w, swi, gravity)?;
-    let w = detach(py, move || f.welge())?;
+    let w = py.detach(move || f.welge())?;
     let outs = call_multi(py, [&pv_injected], move |[q]| {
         lift_multi(["pv_injected"], [q], oe, |[q]| {
             let s = f.state(&w, q)?;
