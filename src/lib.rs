@@ -30,6 +30,8 @@ pub mod water;
 
 mod pages;
 mod simd;
+#[cfg(test)]
+mod testing;
 
 pub use error::{Error, Result};
 

@@ -1172,13 +1172,7 @@ mod tests {
     /// Deterministic pseudo-random points over and beyond the benchmark's domain
     /// (Ppr 0.2-15, Tpr 1.05-3), including invalid, NaN and out-of-table values.
     fn points(n: usize) -> Vec<[f64; 2]> {
-        let mut s = 0x9e37_79b9_7f4a_7c15_u64;
-        let mut rnd = move || {
-            s ^= s << 13;
-            s ^= s >> 7;
-            s ^= s << 17;
-            (s >> 11) as f64 / (1u64 << 53) as f64
-        };
+        let mut rnd = crate::testing::uniform_stream(0x9e37_79b9_7f4a_7c15);
         let mut v: Vec<[f64; 2]> = (0..n)
             .map(|_| [0.01 + 40.0 * rnd() * rnd(), 0.9 + 2.6 * rnd()])
             .collect();

@@ -1124,12 +1124,16 @@ pub fn build_tables(oils: &[Oil], pressures: &[f64]) -> Result<Vec<Result<BlackO
 ///
 /// # Examples
 /// ```
-/// use stocktank::oil::table::Columns;
-/// let c = Columns::from_columns(&[vec![1.0, 2.0], vec![3.0, 4.0]]).unwrap();
-/// assert_eq!((c.len(), c.rows()), (2, 2));
-/// assert_eq!(&c[1], &[3.0, 4.0]);
-/// assert_eq!(c.iter().map(|col| col[0]).collect::<Vec<_>>(), vec![1.0, 3.0]);
-/// assert_eq!(c.into_block(), (vec![1.0, 2.0, 3.0, 4.0], 2));
+/// use stocktank::array::OnError;
+/// use stocktank::oil::{table::build_long, Oil};
+/// let oils = [Oil::new(35.0, 0.8, 600.0, 200.0).unwrap()];
+/// let c = build_long(&oils, &[1000.0, 3000.0], OnError::Raise).unwrap().columns;
+/// assert_eq!((c.len(), c.rows()), (13, 3)); // the grid and Pb
+/// assert!(c[0].contains(&1000.0) && c[0].contains(&3000.0)); // column 0: pressures
+/// assert_eq!(c.iter().count(), 13);
+/// let bo = c[2].to_vec();
+/// let (block, rows) = c.into_block(); // column after column
+/// assert_eq!(&block[2 * rows..3 * rows], &bo[..]);
 /// ```
 #[derive(Debug, Clone, PartialEq, Default)]
 pub struct Columns {
@@ -1146,19 +1150,6 @@ impl Columns {
             count,
             rows,
         }
-    }
-
-    /// Columns from separate vectors of one length; `None` if the lengths differ.
-    pub fn from_columns(columns: &[Vec<f64>]) -> Option<Self> {
-        let rows = columns.first().map_or(0, Vec::len);
-        if columns.iter().any(|c| c.len() != rows) {
-            return None;
-        }
-        Some(Self {
-            data: columns.concat(),
-            count: columns.len(),
-            rows,
-        })
     }
 
     /// The number of columns.
@@ -1510,13 +1501,7 @@ mod tests {
     #[test]
     fn columns_agree_with_the_checked_rows() {
         use crate::oil::{Calibration, CoMethod, Methods};
-        let mut state = 0x2545_f491_4f6c_dd1d_u64;
-        let mut next = move || {
-            state ^= state << 13;
-            state ^= state >> 7;
-            state ^= state << 17;
-            (state >> 11) as f64 / (1u64 << 53) as f64
-        };
+        let mut next = crate::testing::uniform_stream(0x2545_f491_4f6c_dd1d);
         let mut worst = [0.0f64; 13];
         let mut tables = 0;
         for case in 0..600 {

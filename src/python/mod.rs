@@ -108,26 +108,12 @@ pub(crate) fn to_py(py: Python<'_>, out: ArrayD<f64>, scalar: bool) -> PyResult<
 }
 
 /// Whether elementwise work over inputs of these shapes stays below
-/// [`crate::array::PARALLEL_THRESHOLD`] elements once broadcast (an upper bound of the
-/// broadcast size: per axis from the right, the largest length).
+/// [`crate::array::PARALLEL_THRESHOLD`] elements once broadcast (shapes that do not
+/// broadcast count as large: the pool path then reports their error).
 fn below_parallel_threshold(shapes: &[&[usize]]) -> bool {
-    let ndim = shapes.iter().map(|s| s.len()).max().unwrap_or(0);
-    let mut total = 1usize;
-    for axis in 1..=ndim {
-        let len = shapes
-            .iter()
-            .map(|s| {
-                if axis <= s.len() {
-                    s[s.len() - axis]
-                } else {
-                    1
-                }
-            })
-            .max()
-            .unwrap_or(1);
-        total = total.saturating_mul(len);
-    }
-    total < crate::array::PARALLEL_THRESHOLD
+    let names = vec![""; shapes.len()];
+    crate::array::broadcast_shape(&names, shapes)
+        .is_ok_and(|s| s.iter().product::<usize>() < crate::array::PARALLEL_THRESHOLD)
 }
 
 /// Release the GIL and run elementwise work `f` over inputs of the given shapes: on the
