@@ -9,8 +9,9 @@ Lee–Gonzalez–Eakin (1966), water Bw by McCain (1990) and viscosity by Meehan
 The sides run in rotating order in one process: numpy, stocktank on one thread
 (``stocktank.num_threads(1)``) and stocktank on all cores. The script prints the medians of
 the per-round ratios (numpy time / stocktank time, and one thread / all cores), the ratio
-against the numpy code called once per well, and the largest
-relative difference between the two results.
+against the numpy code called once per well, and the largest relative difference between
+the two results. Two more sides in the rotation time a floor under any build on one core:
+stocktank's Z solver alone on the tables' points, and writing a fresh result block.
 
 Usage: python benches/bench_blackoil.py [--wells 10000] [--points 50] [--rounds 5]
 """
@@ -138,24 +139,58 @@ def numpy_per_table(p_grid, api, g, t, gor):
     return [numpy_tables(p_grid, api[k : k + 1], g[k : k + 1], t[k : k + 1], gor[k : k + 1]) for k in range(api.size)]
 
 
+def z_points(p_grid, api, g, t, gor):
+    """The (Ppr, Tpr) of every row of the tables (grid and Pb), as the numpy code has them."""
+    a = 0.00091 * t - 0.0125 * api
+    pb = 18.2 * ((gor / g) ** 0.83 * 10**a - 1.4)
+    p = np.sort(np.concatenate([np.broadcast_to(p_grid, (api.size, p_grid.size)), pb[:, None]], axis=1), axis=1)
+    tpc = 169.2 + 349.5 * g - 74.0 * g * g
+    ppc = 756.8 - 131.0 * g - 3.6 * g * g
+    tpr = np.broadcast_to(((t + 459.67) / tpc)[:, None], p.shape)
+    return np.ascontiguousarray(p / ppc[:, None]), np.ascontiguousarray(tpr)
+
+
+def floor_sides(args):
+    """Two parts of any build, timed alone on one thread: the Z column (stocktank's own
+    Dranchuk–Abou-Kassem array solver on the same points, one of the thirteen columns) and
+    the delivery of the result (a fresh (13, rows) float block written once, as numpy does it)."""
+    ppr, tpr = z_points(*args)
+
+    def z_alone():
+        with st.num_threads(1):
+            return timed(st.z_factor, ppr, tpr)
+
+    def fresh_block():
+        def write():
+            np.empty((13, ppr.size)).fill(1.0)
+
+        return timed(write)
+
+    return z_alone, fresh_block
+
+
 def measure(n, points, rounds):
-    """Rotating rounds of three sides: numpy, stocktank on one thread, stocktank on all cores;
-    then the per-well numpy loop against stocktank on one thread."""
+    """Rotating rounds of five sides: numpy, stocktank on one thread, stocktank on all cores, and
+    the two floor parts of `floor_sides`; then the per-well numpy loop against stocktank on one
+    thread."""
     args = inputs(n, points)
 
     def one_thread(a):
         with st.num_threads(1):
             return timed(rust_tables, *a)
 
+    z_alone, fresh_block = floor_sides(args)
     sides = {
         "numpy": lambda: timed(numpy_tables, *args),
         "one": lambda: one_thread(args),
         "all": lambda: timed(rust_tables, *args),
+        "z": z_alone,
+        "block": fresh_block,
     }
     t = {k: [] for k in sides}
     order = list(sides)
     for r in range(rounds):
-        for k in order[r % 3 :] + order[: r % 3]:
+        for k in order[r % len(order) :] + order[: r % len(order)]:
             t[k].append(sides[k]())
     loop = []
     for _ in range(rounds):
@@ -168,6 +203,9 @@ def measure(n, points, rounds):
         one_ratio=med([b / a for a, b in zip(t["one"], t["numpy"])]),
         all_ratio=med([b / a for a, b in zip(t["all"], t["numpy"])]),
         speedup=med([a / c for a, c in zip(t["one"], t["all"])]),
+        z=med(t["z"]),
+        block=med(t["block"]),
+        floor_ratio=med([b / (z + w) for b, z, w in zip(t["numpy"], t["z"], t["block"])]),
         loop_ratio=med(loop),
     )
 
@@ -206,6 +244,11 @@ def main():
     print(f"one core : numpy called once per well (vectorised over pressures), median ratio {m['loop_ratio']:.1f}x")
     print(f"all cores: numpy {m['numpy']:.3f} s, stocktank {m['all']:.3f} s, median ratio {m['all_ratio']:.1f}x")
     print(f"parallel speed-up of stocktank: median ratio {m['speedup']:.2f}x on {cores} threads")
+    print(
+        f"floor, one core: Z column alone {m['z']:.3f} s + fresh result block {m['block']:.3f} s;"
+        f" numpy / floor = {m['floor_ratio']:.1f}x (no build that computes Z and returns a fresh"
+        " result can beat numpy by more than this)"
+    )
     print("load average at end (1, 5, 15 min): " + ", ".join(f"{x:.1f}" for x in os.getloadavg()))
 
 
