@@ -286,3 +286,32 @@ def test_carter_tracy_is_exact_at_constant_influx_rate(red):
     p = np.array([pi - q * talbot_pd(a * x, red) for x in t])
     we = st.Aquifer(model="carter_tracy", constant=1.0, td_per_day=a, red=red).influx(t, p, p_initial=pi)
     np.testing.assert_allclose(we, q * a * t, rtol=1e-4)
+
+
+@pytest.mark.parametrize("objective", ["pressure", "withdrawal"])
+def test_history_match_recovers_a_volume_account_with_fetkovich_influx(objective):
+    # The forward model above with a Fetkovich (1971) aquifer written out here (stepwise,
+    # average pressures); the match starts far from the truth and must find N, C = Wei/pi
+    # and tau = Wei/(J pi) again.
+    p_tab = np.arange(1000.0, 3601.0, 100.0)
+    _, cols = black_oil(p_tab)
+    pvt = st.PvtTable(**cols)
+    p_hist = np.arange(3600.0, 1999.0, -100.0)
+    t = 91.0 * np.arange(p_hist.size)
+    n, swi, cw, cf = 3.0e7, 0.2, 3.0e-6, 5.0e-6
+    wei, j, pi = 2.0e8, 40.0, p_hist[0]
+    we, pa = [0.0], pi
+    for k in range(1, p_hist.size):
+        e = -np.expm1(-j * pi * (t[k] - t[k - 1]) / wei)
+        we.append(we[-1] + wei / pi * (pa - 0.5 * (p_hist[k - 1] + p_hist[k])) * e)
+        pa = pi * (1.0 - we[-1] / wei)
+    extra = 250.0 * np.clip((3000.0 - p_hist) / 800.0, 0.0, 1.0)
+    np_, gp_ = volume_account_history(cols, p_hist, n, 0.0, swi, cw, cf, np.array(we), extra)
+    start = st.Aquifer(model="fetkovich", constant=1.0, tau_days=30.0)
+    got = mb.history_match(
+        pvt, t_days=t, p=p_hist, np_stb=np_, gp_scf=gp_, p_initial=pi, swi=swi, cw=cw, cf=cf,
+        m=0.0, aquifer=start, objective=objective,
+    )
+    assert got["n"] == pytest.approx(n, rel=1e-6)
+    assert got["aquifer"].constant == pytest.approx(wei / pi, rel=1e-5)
+    assert got["aquifer"].tau_days == pytest.approx(wei / (j * pi), rel=1e-5)
