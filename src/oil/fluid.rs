@@ -358,6 +358,12 @@ impl Oil {
 
     /// Set the standard conditions of Rs and gas volumes.
     ///
+    /// They set Bg, the gas density and the mass of dissolved gas in the oil density, so
+    /// that Bt and the oil density are consistent with Rs in the user's scf. The
+    /// correlations themselves take Rs and GOR as given, although their data were reported
+    /// at 14.7 psia and 60 degF: with 14.65 psia that is a 0.3 % difference in the gas
+    /// volume, well inside each correlation's scatter (see their docs), and not corrected.
+    ///
     /// # Examples
     /// ```
     /// use stocktank::units::StandardConditions;

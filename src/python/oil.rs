@@ -579,6 +579,11 @@ fn table_dict<'py>(py: Python<'py>, t: BlackOilTable) -> PyResult<Bound<'py, PyD
 /// A black oil: stock-tank gravity, gas gravity, solution GOR and/or bubble point,
 /// temperature, correlation choices, measurements to calibrate to, water salinity and
 /// standard conditions. Frozen, comparable, picklable.
+///
+/// ``p_sc`` (psia) and ``t_sc`` (degF) are the standard conditions of Rs, GOR and the gas
+/// volumes: they set Bg, the gas density and the dissolved-gas mass in the oil density. The
+/// correlations take Rs and GOR as given (their data were at 14.7 psia and 60 degF; 14.65 psia
+/// is a 0.3 % difference in gas volume, inside their scatter, and not corrected).
 #[pyclass(name = "Oil", module = "stocktank._core", frozen, eq)]
 #[derive(Clone, PartialEq)]
 pub struct Oil(pub CoreOil);
