@@ -534,9 +534,26 @@ fn hist(
     })
 }
 
+/// `message` with each quoted core name `` `from` `` replaced by the Python keyword `` `to` ``.
+fn rename_in(message: String, names: &[(&str, &str)]) -> String {
+    names.iter().fold(message, |m, (from, to)| {
+        m.replace(&format!("`{from}`"), &format!("`{to}`"))
+    })
+}
+
+/// History column names of the core (`np`, `gp`, ...) as the Python keywords.
+const HISTORY_NAMES: [(&str, &str); 5] = [
+    ("np", "np_stb"),
+    ("gp", "gp_scf"),
+    ("wp", "wp_stb"),
+    ("wi", "wi_stb"),
+    ("gi", "gi_scf"),
+];
+
 /// Column names in errors as the Python user typed them.
 fn rename_cols(e: Error) -> Error {
     match e {
+        Error::Shape(m) => Error::Shape(rename_in(m, &HISTORY_NAMES)),
         Error::InvalidRecord { arg, row, message } => Error::InvalidRecord {
             arg: match arg.as_str() {
                 "np" => "np_stb".into(),
@@ -1139,6 +1156,7 @@ fn pz_fit<'py>(
 
 fn rename_gas(e: Error) -> Error {
     match e {
+        Error::Shape(m) => Error::Shape(rename_in(m, &HISTORY_NAMES)),
         Error::InvalidRecord { arg, row, message } if arg == "gp" => Error::InvalidRecord {
             arg: "gp_scf".into(),
             row,
@@ -1339,6 +1357,10 @@ fn gas_history_match<'py>(
             row,
             message,
         },
+        Error::Shape(m) => Error::Shape(rename_in(
+            m,
+            &[("p", "table_p"), ("z", "table_z"), ("bg", "table_bg")],
+        )),
         o => o,
     })?;
     let history = mb::GasHistory::new(

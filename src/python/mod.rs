@@ -88,6 +88,29 @@ impl From<Error> for PyErr {
 
 pub(crate) use threads::detach;
 
+/// An [`Error::InvalidArgument`] whose core argument name is `from` renamed to the Python
+/// keyword `to`, for each pair of `names` (other errors pass through): the message must name
+/// what the user typed.
+pub(crate) fn rename_arg(e: Error, names: &[(&'static str, &'static str)]) -> Error {
+    match e {
+        Error::InvalidArgument {
+            arg,
+            value,
+            reason,
+            index,
+        } => Error::InvalidArgument {
+            arg: names
+                .iter()
+                .find(|(from, _)| *from == arg)
+                .map_or(arg, |(_, to)| *to),
+            value,
+            reason,
+            index,
+        },
+        other => other,
+    }
+}
+
 /// Any array-like input (float, int, list, any-dtype array), converted to float64.
 pub(crate) type In<'py> = PyArrayLikeDyn<'py, f64, AllowTypeChange>;
 

@@ -612,7 +612,8 @@ fn probabilistic_in_place<'py>(
 fn summarize<'py>(py: Python<'py>, samples: In<'py>) -> PyResult<Bound<'py, PyDict>> {
     let view = samples.as_array();
     let data: Vec<f64> = view.iter().copied().collect();
-    let s = detach(py, move || v::summarize(&data))?;
+    let s = detach(py, move || v::summarize(&data))
+        .map_err(|e| super::rename_arg(e, &[("data", "samples")]))?;
     summary(py, &s)
 }
 
