@@ -376,3 +376,42 @@ def test_bad_input_names_the_row():
     with pytest.raises(st.InvalidArgumentError, match=r"at index 1"):
         pvt.at([1000.0, 9000.0])
     assert issubclass(st.SingularError, ValueError)
+
+
+# ---- robustness: unusual inputs (regressions) -----------------------------------------------
+
+
+def test_veh_tiny_dimensionless_time_ends_and_is_not_nan():
+    # tD = 1e-300 used to loop ~1e77 times in the Bessel K integral (cosh h rounded to 1), and
+    # a closed aquifer gave NaN (0 x inf) from tD ~ 1e-4 down. Early time, both kinds and a
+    # closed aquifer alike: WD ~ pD ~ 2 sqrt(tD/pi) (van Everdingen & Hurst 1949).
+    td = np.array([1e-100, 1e-8, 1e-5])
+    early = 2.0 * np.sqrt(td / np.pi)
+    for red in (np.inf, 5.0):
+        wd = st.veh_dimensionless_influx(td, red=red)
+        pd_ = st.veh_dimensionless_pressure(td, red=red)
+        np.testing.assert_allclose(wd, early, rtol=2e-3)
+        np.testing.assert_allclose(pd_, early, rtol=2e-3)
+    # Underflow, not a hang or NaN, far below any real time.
+    assert st.veh_dimensionless_influx(1e-300) == pytest.approx(0.0, abs=1e-100)
+    assert st.veh_dimensionless_pressure(1e-300, red=5.0) == pytest.approx(0.0, abs=1e-100)
+    # A huge radius ratio is an infinite aquifer (used to hang the same way).
+    assert st.veh_dimensionless_influx(1.0, red=1e300) == pytest.approx(st.veh_dimensionless_influx(1.0), rel=1e-12)
+
+
+def test_history_length_errors_name_the_python_keywords():
+    pvt = make_pvt()
+    t, p = declining(6, 2000.0)
+    h = synthetic(pvt, t, p, 1e7, 0.0)
+    for key, name in [("np_stb", "np_stb"), ("gp_scf", "gp_scf"), ("wp_stb", "wp_stb")]:
+        bad = dict(h, **{key: h[key][:-1]})
+        with pytest.raises(st.ShapeError, match=f"`{name}` has 5 rows"):
+            mb.oil_mbe_terms(pvt, **bad, **RES)
+    gp = h["gp_scf"]
+    with pytest.raises(st.ShapeError, match="`gp_scf` has 5"):
+        st.pz_fit(gp_scf=gp[:-1], p=h["p"], z=np.full(6, 0.9))
+    table_p = np.arange(500.0, 3501.0, 100.0)
+    with pytest.raises(st.ShapeError, match="`table_p` has 31 rows, `table_z` 30"):
+        mb.gas_history_match(
+            t_days=t, p=p, gp_scf=gp, p_initial=PI, table_p=table_p, table_z=np.full(30, 0.9), temperature_f=200.0
+        )

@@ -305,3 +305,9 @@ def test_piston_front_and_critical_saturation():
 def test_fixed_input_cannot_be_correlated():
     with pytest.raises(st.InvalidArgumentError, match="fixed input cannot be correlated"):
         st.probabilistic_in_place("oil", **inputs(fvf=1.3), correlation={("sw", "fvf"): 0.3}, trials=1000)
+
+
+def test_summarize_errors_name_samples():
+    # The core's name `data` used to appear in the message.
+    with pytest.raises(st.InvalidArgumentError, match=r"`samples` = NaN at index 1"):
+        st.summarize([1.0, np.nan, 2.0])
