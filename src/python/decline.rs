@@ -311,6 +311,12 @@ fn fit_decline_batch<'py>(
         max_iter,
         tol,
     };
+    // Each thread holds one well's bootstrap EURs at a time.
+    super::check_memory(
+        "n_bootstrap",
+        n_bootstrap,
+        rayon::current_num_threads().max(1) * std::mem::size_of::<f64>(),
+    )?;
     let tv = to_vec(&t, "t")?;
     let qv = to_vec(&q, "q")?;
     let mut off = Vec::with_capacity(offsets.len()?);

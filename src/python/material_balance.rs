@@ -1415,6 +1415,8 @@ fn muskat_forecast<'py>(
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
+    // A row of a dozen numbers per step.
+    super::check_memory("n_steps", n_steps, 16 * std::mem::size_of::<f64>())?;
     let f = py.detach(|| mb::muskat_forecast(table, &k, p_bubble, p_end, n_steps))?;
     forecast_dict(py, f)
 }
@@ -1449,6 +1451,8 @@ fn tarner_forecast<'py>(
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
+    // A row of a dozen numbers per step.
+    super::check_memory("n_steps", n_steps, 16 * std::mem::size_of::<f64>())?;
     let f = py.detach(|| mb::tarner_forecast(table, &k, p_bubble, p_end, n_steps))?;
     let d = forecast_dict(py, f.forecast)?;
     let it: Vec<u64> = f.iterations.iter().map(|&v| v as u64).collect();

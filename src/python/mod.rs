@@ -88,6 +88,22 @@ impl From<Error> for PyErr {
 
 pub(crate) use threads::detach;
 
+/// Fail with a Python `MemoryError` naming `arg` when `count` items of about `bytes_each`
+/// bytes cannot be allocated, found by reserving (and at once releasing) that much; the
+/// allocation inside the work would abort the process or panic ("capacity overflow")
+/// instead. Like numpy's `MemoryError` for an impossible array; no memory is touched.
+pub(crate) fn check_memory(arg: &str, count: usize, bytes_each: usize) -> PyResult<()> {
+    let bytes = count.checked_mul(bytes_each);
+    if bytes.is_some_and(|b| Vec::<u8>::new().try_reserve_exact(b).is_ok()) {
+        Ok(())
+    } else {
+        Err(pyo3::exceptions::PyMemoryError::new_err(format!(
+            "`{arg}` = {count} needs about {} bytes, more than can be allocated",
+            bytes.map_or_else(|| "2^64 or more".to_string(), |b| b.to_string())
+        )))
+    }
+}
+
 /// An [`Error::InvalidArgument`] whose core argument name is `from` renamed to the Python
 /// keyword `to`, for each pair of `names` (other errors pass through): the message must name
 /// what the user typed.

@@ -406,10 +406,17 @@ impl Distribution {
     }
     /// ``n`` reproducible samples (same ``seed`` and ``stream``, same samples).
     #[pyo3(signature = (n, *, seed = 0, stream = 0))]
-    fn sample<'py>(&self, py: Python<'py>, n: usize, seed: u64, stream: u64) -> Bound<'py, PyAny> {
+    fn sample<'py>(
+        &self,
+        py: Python<'py>,
+        n: usize,
+        seed: u64,
+        stream: u64,
+    ) -> PyResult<Bound<'py, PyAny>> {
+        super::check_memory("n", n, std::mem::size_of::<f64>())?;
         let d = self.0;
         let x = detach(py, move || d.sample(n, seed, stream));
-        x.into_pyarray(py).into_any()
+        Ok(x.into_pyarray(py).into_any())
     }
     /// The canonical constructor keywords.
     fn params<'py>(&self, py: Python<'py>) -> PyResult<Bound<'py, PyDict>> {
@@ -567,6 +574,8 @@ fn probabilistic_in_place<'py>(
             Some(Correlation::from_pairs(&pairs)?)
         }
     };
+    // A column per input (up to 7) and the results, with their ranks: about 16 numbers a trial.
+    super::check_memory("trials", trials, 16 * std::mem::size_of::<f64>())?;
     let sim = detach(py, move || {
         v::probabilistic_in_place(fl, &inputs, corr.as_ref(), trials, seed)
     })?;

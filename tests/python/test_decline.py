@@ -387,3 +387,10 @@ def test_fit_flags_an_infinite_rate_as_invalid_data():
     # A NaN rate is a missing month, as before.
     q[5] = np.nan
     assert st.fit_decline_batch(t, q, np.array([0, 24]), n_bootstrap=5)["status"][0] == "ok"
+
+
+def test_impossible_bootstrap_count_raises_memoryerror():
+    t = np.arange(24) * MONTH
+    q = 1000.0 * (1 + 0.8 * 0.5 * t / YEAR) ** (-1 / 0.8)
+    with pytest.raises(MemoryError, match="`n_bootstrap`"):
+        st.fit_decline_batch(t, q, np.array([0, 24]), n_bootstrap=2**60)

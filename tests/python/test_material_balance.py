@@ -415,3 +415,11 @@ def test_history_length_errors_name_the_python_keywords():
         mb.gas_history_match(
             t_days=t, p=p, gp_scf=gp, p_initial=PI, table_p=table_p, table_z=np.full(30, 0.9), temperature_f=200.0
         )
+
+
+def test_forecast_impossible_step_count_raises_memoryerror():
+    pvt = make_pvt()
+    k = st.CoreyGasOil(swc=0.2, sgc=0.05, sorg=0.15)
+    for f in (mb.muskat_forecast, mb.tarner_forecast):
+        with pytest.raises(MemoryError, match="`n_steps`"):
+            f(pvt, k, p_bubble=PB, p_end=600.0, n_steps=2**60)

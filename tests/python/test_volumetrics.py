@@ -311,3 +311,17 @@ def test_summarize_errors_name_samples():
     # The core's name `data` used to appear in the message.
     with pytest.raises(st.InvalidArgumentError, match=r"`samples` = NaN at index 1"):
         st.summarize([1.0, np.nan, 2.0])
+
+
+def test_impossible_sample_counts_raise_memoryerror_not_abort():
+    # 2**50 samples (9 PB) aborted the process (or panicked with "capacity overflow" for
+    # 2**64 - 1); now a MemoryError naming the argument, as numpy does.
+    d = D.uniform(0.0, 1.0)
+    for n in (2**50, 2**64 - 1):
+        with pytest.raises(MemoryError, match="`n`"):
+            d.sample(n)
+    with pytest.raises(MemoryError, match="`trials`"):
+        st.probabilistic_in_place(
+            "oil", area=D.uniform(1.0, 2.0), thickness=10.0, porosity=0.2, sw=0.3, fvf=1.2, trials=2**50
+        )
+    assert d.sample(10).shape == (10,)
