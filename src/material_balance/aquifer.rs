@@ -618,6 +618,9 @@ fn s32_wd_bar(s: f64, red: f64) -> f64 {
 pub fn veh_dimensionless_influx(td: f64, red: f64) -> Result<f64> {
     check_red(red)?;
     positive("td", td)?;
+    if td < EARLY_TD {
+        return Ok(early_time(td));
+    }
     let w = weights();
     stehfest_invert(|s| wd_bar(s, red), td, &w)
 }
@@ -654,8 +657,21 @@ pub fn veh_dimensionless_influx(td: f64, red: f64) -> Result<f64> {
 pub fn veh_dimensionless_pressure(td: f64, red: f64) -> Result<f64> {
     check_red(red)?;
     positive("td", td)?;
+    if td < EARLY_TD {
+        return Ok(early_time(td));
+    }
     let w = weights();
     stehfest_invert(|s| pd_bar(s, red), td, &w)
+}
+
+/// Below this tD both WD and pD are 2 sqrt(tD / pi) to double precision (the next term,
+/// tD / 2, is sqrt(pi tD) / 4 ~ 4e-16 of it), and the Laplace variable s ~ 1 / tD of the
+/// inversion would overflow for the tiniest tD.
+const EARLY_TD: f64 = 1e-30;
+
+/// Early-time WD and pD of a radial aquifer: 2 sqrt(tD / pi) (van Everdingen & Hurst 1949).
+fn early_time(td: f64) -> f64 {
+    2.0 * (td / std::f64::consts::PI).sqrt()
 }
 
 fn weights() -> Vec<f64> {

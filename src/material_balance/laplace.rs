@@ -159,6 +159,13 @@ pub(crate) fn i01_scaled(x: f64) -> (f64, f64) {
 /// 1e-15 relative. The exponent uses cosh t - 1 = 2 sinh^2(t/2), which keeps its value for
 /// the tiny steps of huge x (where `cosh t` rounds to 1 and the sum would never decay).
 pub(crate) fn k01_scaled(x: f64) -> (f64, f64) {
+    // The step below must be positive and finite, or the loop would not end.
+    if x.is_nan() {
+        return (f64::NAN, f64::NAN);
+    }
+    if x == f64::INFINITY {
+        return (0.0, 0.0); // e^x K(x) ~ sqrt(pi / (2x)) -> 0
+    }
     let h = 0.125f64.min(0.6 / x.sqrt());
     let (mut s0, mut s1) = (0.5, 0.5);
     let mut t: f64 = h;

@@ -392,9 +392,11 @@ def test_veh_tiny_dimensionless_time_ends_and_is_not_nan():
         pd_ = st.veh_dimensionless_pressure(td, red=red)
         np.testing.assert_allclose(wd, early, rtol=2e-3)
         np.testing.assert_allclose(pd_, early, rtol=2e-3)
-    # Underflow, not a hang or NaN, far below any real time.
-    assert st.veh_dimensionless_influx(1e-300) == pytest.approx(0.0, abs=1e-100)
-    assert st.veh_dimensionless_pressure(1e-300, red=5.0) == pytest.approx(0.0, abs=1e-100)
+    # Far below any real time (down to the smallest float): the same early-time value.
+    td = np.array([1e-300, 5e-324])
+    for f in (st.veh_dimensionless_influx, st.veh_dimensionless_pressure):
+        np.testing.assert_allclose(f(td), 2.0 * np.sqrt(td / np.pi), rtol=1e-12)
+        np.testing.assert_allclose(f(td, red=5.0), 2.0 * np.sqrt(td / np.pi), rtol=1e-12)
     # A huge radius ratio is an infinite aquifer (used to hang the same way).
     assert st.veh_dimensionless_influx(1.0, red=1e300) == pytest.approx(st.veh_dimensionless_influx(1.0), rel=1e-12)
 
@@ -423,3 +425,16 @@ def test_forecast_impossible_step_count_raises_memoryerror():
     for f in (mb.muskat_forecast, mb.tarner_forecast):
         with pytest.raises(MemoryError, match="`n_steps`"):
             f(pvt, k, p_bubble=PB, p_end=600.0, n_steps=2**60)
+
+
+def test_history_match_batch_rejects_unknown_history_keys():
+    # A misspelt key ("wp_stbb") used to be ignored, silently dropping the water column.
+    pvt = make_pvt()
+    t, p = declining(6, 2000.0)
+    h = synthetic(pvt, t, p, 1e7, 0.0)
+    bad = {("wp_stbb" if k == "wp_stb" else k): v for k, v in h.items()}
+    kw = dict(p_initial=[PI, PI], swi=[0.2, 0.2], cw=[3e-6, 3e-6], cf=[4e-6, 4e-6], m=0.0)
+    with pytest.raises(st.InvalidRecordError, match=r"`histories` at row 1: unknown key 'wp_stbb'"):
+        mb.history_match_batch([pvt, pvt], [h, bad], **kw)
+    out = mb.history_match_batch([pvt, pvt], [h, bad], **kw, errors="coerce")
+    assert isinstance(out[0], dict) and isinstance(out[1], st.InvalidRecordError)
