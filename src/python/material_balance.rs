@@ -541,6 +541,11 @@ fn rename_in(message: String, names: &[(&str, &str)]) -> String {
     })
 }
 
+/// The keys of a history dict of `history_match_batch`.
+const HISTORY_KEYS: [&str; 7] = [
+    "t_days", "p", "np_stb", "gp_scf", "wp_stb", "wi_stb", "gi_scf",
+];
+
 /// History column names of the core (`np`, `gp`, ...) as the Python keywords.
 const HISTORY_NAMES: [(&str, &str); 5] = [
     ("np", "np_stb"),
@@ -992,7 +997,7 @@ fn history_match<'py>(
 /// Batch history match in parallel (all cores, GIL released). ``pvts`` and ``histories``
 /// are equal-length lists (a history is a dict with the keyword arrays of
 /// :func:`history_match`: ``t_days``, ``p``, ``np_stb``, ``gp_scf`` and optionally
-/// ``wp_stb``, ``wi_stb``, ``gi_scf``); ``p_initial``, ``swi``, ``cw``, ``cf`` are lists of
+/// ``wp_stb``, ``wi_stb``, ``gi_scf``; any other key is an error); ``p_initial``, ``swi``, ``cw``, ``cf`` are lists of
 /// the same length. Returns a list of result dicts, or of exceptions where
 /// ``errors="coerce"`` (with ``"raise"`` the first failure raises).
 #[pyfunction]
@@ -1054,6 +1059,24 @@ fn history_match_batch<'py>(
             })
         };
         let conv = (|| -> PyResult<Hist> {
+            // A misspelt key (e.g. "wp_stbb") would silently drop its column.
+            for k in d.keys() {
+                let known = k
+                    .extract::<String>()
+                    .is_ok_and(|k| HISTORY_KEYS.contains(&k.as_str()));
+                if !known {
+                    return Err(Error::InvalidRecord {
+                        arg: "histories".into(),
+                        row: i,
+                        message: format!(
+                            "unknown key {}; the keys are {}",
+                            k.repr()?,
+                            HISTORY_KEYS.join(", ")
+                        ),
+                    }
+                    .into());
+                }
+            }
             hist(
                 &req("t_days")?,
                 &req("p")?,
