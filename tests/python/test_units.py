@@ -188,3 +188,11 @@ def test_rebase_errors_name_from_and_to_keywords():
         st.rebase_gas_volume(1.0, from_p_sc=-1.0, from_t_sc=60.0, to_p_sc=14.65, to_t_sc=60.0)
     with pytest.raises(st.InvalidArgumentError, match="`to_t_sc`"):
         st.rebase_gas_volume(1.0, from_p_sc=14.696, from_t_sc=60.0, to_p_sc=14.65, to_t_sc=-500.0)
+
+
+def test_unit_system_errors_name_the_role():
+    # The message used to name unit_factor's own `from_unit`.
+    with pytest.raises(st.InvalidOptionError, match=r"role `pressure`.*\"furlong\""):
+        UnitSystem(pressure="furlong")
+    with pytest.raises(st.InvalidOptionError, match=r"role `area`"):
+        UnitSystem(area="kPa")
