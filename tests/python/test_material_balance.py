@@ -438,3 +438,13 @@ def test_history_match_batch_rejects_unknown_history_keys():
         mb.history_match_batch([pvt, pvt], [h, bad], **kw)
     out = mb.history_match_batch([pvt, pvt], [h, bad], **kw, errors="coerce")
     assert isinstance(out[0], dict) and isinstance(out[1], st.InvalidRecordError)
+
+
+def test_history_match_rejects_nan_or_negative_tolerance():
+    # A NaN or negative tolerance used to be accepted and the result still said converged.
+    pvt = make_pvt()
+    t, p = declining(8, 2000.0)
+    h = synthetic(pvt, t, p, 1e7, 0.0)
+    for tol in (float("nan"), -1.0, 0.0):
+        with pytest.raises(st.InvalidArgumentError, match="`tolerance`"):
+            mb.history_match(pvt, **h, **RES, m=0.0, tolerance=tol)
