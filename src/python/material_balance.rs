@@ -840,10 +840,11 @@ fn match_options(
     fit_shape: bool,
     fit_red: bool,
     objective: &str,
-    max_iterations: usize,
+    max_iterations: i128,
     tolerance: f64,
     confidence: f64,
 ) -> PyResult<mb::HistoryMatchOptions> {
+    let max_iterations: usize = super::whole("max_iterations", max_iterations)?;
     let objective = match objective {
         "pressure" => mb::Objective::Pressure,
         "withdrawal" => mb::Objective::Withdrawal,
@@ -972,7 +973,7 @@ fn history_match<'py>(
     fit_shape: bool,
     fit_red: bool,
     objective: &str,
-    max_iterations: usize,
+    max_iterations: i128,
     tolerance: f64,
     confidence: f64,
 ) -> PyResult<Bound<'py, PyDict>> {
@@ -1016,7 +1017,7 @@ fn history_match_batch<'py>(
     fit_shape: bool,
     fit_red: bool,
     objective: &str,
-    max_iterations: usize,
+    max_iterations: i128,
     tolerance: f64,
     confidence: f64,
     errors: &str,
@@ -1352,7 +1353,7 @@ fn gas_history_match<'py>(
     fit_red: bool,
     fit_ce: bool,
     objective: &str,
-    max_iterations: usize,
+    max_iterations: i128,
     tolerance: f64,
     confidence: f64,
     p_sc: f64,
@@ -1411,7 +1412,7 @@ fn gas_history_match<'py>(
         fit_red,
         fit_ce,
         objective: o.objective,
-        max_iterations,
+        max_iterations: o.max_iterations,
         tolerance,
         confidence,
     };
@@ -1434,10 +1435,11 @@ fn muskat_forecast<'py>(
     relperm: PyRef<'py, super::relperm::CoreyGasOil>,
     p_bubble: f64,
     p_end: f64,
-    n_steps: usize,
+    n_steps: i128,
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
+    let n_steps: usize = super::whole("n_steps", n_steps)?;
     // A row of a dozen numbers per step.
     super::check_memory("n_steps", n_steps, 16 * std::mem::size_of::<f64>())?;
     let f = py.detach(|| mb::muskat_forecast(table, &k, p_bubble, p_end, n_steps))?;
@@ -1470,10 +1472,11 @@ fn tarner_forecast<'py>(
     relperm: PyRef<'py, super::relperm::CoreyGasOil>,
     p_bubble: f64,
     p_end: f64,
-    n_steps: usize,
+    n_steps: i128,
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
+    let n_steps: usize = super::whole("n_steps", n_steps)?;
     // A row of a dozen numbers per step.
     super::check_memory("n_steps", n_steps, 16 * std::mem::size_of::<f64>())?;
     let f = py.detach(|| mb::tarner_forecast(table, &k, p_bubble, p_end, n_steps))?;

@@ -88,6 +88,15 @@ impl From<Error> for PyErr {
 
 pub(crate) use threads::detach;
 
+/// A count, seed or iteration limit as an unsigned integer: a negative (or beyond 2^64)
+/// Python int is an [`Error::InvalidArgument`] naming `arg`, not the `OverflowError`
+/// "can't convert negative int to unsigned" of a direct `usize`/`u64` extraction.
+pub(crate) fn whole<T: TryFrom<i128>>(arg: &'static str, v: i128) -> PyResult<T> {
+    T::try_from(v).map_err(|_| {
+        Error::invalid(arg, v as f64, "must be a whole number from 0 to 2^64 - 1").into()
+    })
+}
+
 /// Fail with a Python `MemoryError` naming `arg` when `count` items of about `bytes_each`
 /// bytes cannot be allocated, found by reserving (and at once releasing) that much; the
 /// allocation inside the work would abort the process or panic ("capacity overflow")

@@ -409,10 +409,13 @@ impl Distribution {
     fn sample<'py>(
         &self,
         py: Python<'py>,
-        n: usize,
-        seed: u64,
-        stream: u64,
+        n: i128,
+        seed: i128,
+        stream: i128,
     ) -> PyResult<Bound<'py, PyAny>> {
+        let n: usize = super::whole("n", n)?;
+        let seed: u64 = super::whole("seed", seed)?;
+        let stream: u64 = super::whole("stream", stream)?;
         super::check_memory("n", n, std::mem::size_of::<f64>())?;
         let d = self.0;
         let x = detach(py, move || d.sample(n, seed, stream));
@@ -528,9 +531,11 @@ fn probabilistic_in_place<'py>(
     net_to_gross: Option<&Bound<'py, PyAny>>,
     recovery_factor: Option<&Bound<'py, PyAny>>,
     correlation: Option<&Bound<'py, PyDict>>,
-    trials: usize,
-    seed: u64,
+    trials: i128,
+    seed: i128,
 ) -> PyResult<Bound<'py, PyDict>> {
+    let trials: usize = super::whole("trials", trials)?;
+    let seed: u64 = super::whole("seed", seed)?;
     let fl = match fluid {
         "oil" => Fluid::Oil,
         "gas" => Fluid::Gas,

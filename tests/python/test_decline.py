@@ -394,3 +394,11 @@ def test_impossible_bootstrap_count_raises_memoryerror():
     q = 1000.0 * (1 + 0.8 * 0.5 * t / YEAR) ** (-1 / 0.8)
     with pytest.raises(MemoryError, match="`n_bootstrap`"):
         st.fit_decline_batch(t, q, np.array([0, 24]), n_bootstrap=2**60)
+
+
+def test_negative_counts_name_the_argument():
+    t = np.arange(24) * MONTH
+    q = 1000.0 * (1 + 0.8 * 0.5 * t / YEAR) ** (-1 / 0.8)
+    for name in ("min_points", "n_bootstrap", "seed", "max_iter"):
+        with pytest.raises(st.InvalidArgumentError, match=f"`{name}` = -3"):
+            st.fit_decline_batch(t, q, np.array([0, 24]), **{name: -3})

@@ -448,3 +448,14 @@ def test_history_match_rejects_nan_or_negative_tolerance():
     for tol in (float("nan"), -1.0, 0.0):
         with pytest.raises(st.InvalidArgumentError, match="`tolerance`"):
             mb.history_match(pvt, **h, **RES, m=0.0, tolerance=tol)
+
+
+def test_negative_step_and_iteration_counts_name_the_argument():
+    pvt = make_pvt()
+    k = st.CoreyGasOil(swc=0.2, sgc=0.05, sorg=0.15)
+    with pytest.raises(st.InvalidArgumentError, match="`n_steps` = -1"):
+        mb.muskat_forecast(pvt, k, p_bubble=PB, p_end=600.0, n_steps=-1)
+    t, p = declining(8, 2000.0)
+    h = synthetic(pvt, t, p, 1e7, 0.0)
+    with pytest.raises(st.InvalidArgumentError, match="`max_iterations` = -1"):
+        mb.history_match(pvt, **h, **RES, m=0.0, max_iterations=-1)
