@@ -175,8 +175,24 @@ impl PvtTable {
     fn bt(&self, py: Python<'_>, p: In<'_>, p_initial: f64, errors: &str) -> PyResult<Py<PyAny>> {
         let oe = on_error(errors)?;
         let t = self.inner.clone();
+        // Errors name the argument that is off the table (`p` with its index, or
+        // `p_initial`), as `at` does, instead of an unindexed "out of range".
+        let outside = "lies outside the PVT table's pressure range";
+        t.at(p_initial).map_err(|_| {
+            let reason = if p_initial.is_nan() {
+                "must not be NaN"
+            } else {
+                outside
+            };
+            Error::invalid("p_initial", p_initial, reason)
+        })?;
         call(py, [&p], move |[p]| {
-            lift(["p"], [p], oe, |[p]| t.bt(p, p_initial))
+            lift(["p"], [p], oe, |[p]| {
+                t.bt(p, p_initial).map_err(|e| match e {
+                    Error::OutOfRange(_) => Error::invalid("p", p, outside),
+                    o => o,
+                })
+            })
         })
     }
     fn __eq__(&self, other: &Bound<'_, PyAny>) -> bool {

@@ -459,3 +459,16 @@ def test_negative_step_and_iteration_counts_name_the_argument():
     h = synthetic(pvt, t, p, 1e7, 0.0)
     with pytest.raises(st.InvalidArgumentError, match="`max_iterations` = -1"):
         mb.history_match(pvt, **h, **RES, m=0.0, max_iterations=-1)
+
+
+def test_bt_errors_name_p_with_index_or_p_initial():
+    # A pressure off the table gave an unindexed "out of range"; a NaN p_initial was
+    # reported as `p`.
+    pvt = make_pvt()
+    with pytest.raises(st.InvalidArgumentError, match=r"`p` = 9000 at index 1"):
+        pvt.bt([1000.0, 9000.0], p_initial=PI)
+    out = pvt.bt([1000.0, 9000.0], p_initial=PI, errors="coerce")
+    assert np.isfinite(out[0]) and np.isnan(out[1])
+    for bad in (float("nan"), 9000.0):
+        with pytest.raises(st.InvalidArgumentError, match="`p_initial`"):
+            pvt.bt([1000.0], p_initial=bad)
