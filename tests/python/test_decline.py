@@ -402,3 +402,8 @@ def test_negative_counts_name_the_argument():
     for name in ("min_points", "n_bootstrap", "seed", "max_iter"):
         with pytest.raises(st.InvalidArgumentError, match=f"`{name}` = -3"):
             st.fit_decline_batch(t, q, np.array([0, 24]), **{name: -3})
+
+
+def test_unsortable_well_keys_name_the_argument():
+    with pytest.raises(TypeError, match="`well` keys must be mutually sortable"):
+        dc.fit_wells(np.array(["A", None, "B"], dtype=object), [1.0, 2.0, 3.0], [1.0, 2.0, 3.0])
