@@ -170,9 +170,11 @@ pub(crate) fn k01_scaled(x: f64) -> (f64, f64) {
     let (mut s0, mut s1) = (0.5, 0.5);
     let mut t: f64 = h;
     loop {
-        let c = t.cosh();
+        // cosh t - 1 = 2 sinh^2(t/2), and cosh t from it: one hyperbolic call, as before.
         let sh = (0.5 * t).sinh();
-        let e = (-x * (2.0 * sh * sh)).exp();
+        let cm1 = 2.0 * sh * sh;
+        let c = 1.0 + cm1;
+        let e = (-x * cm1).exp();
         s0 += e;
         s1 += e * c;
         if e < 1e-18 * s0 {
