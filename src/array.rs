@@ -151,7 +151,9 @@ fn source<'a>(view: &'a ArrayViewD<'a, f64>, out_shape: &[usize]) -> Source<'a> 
 }
 
 /// Attach to a kernel error the index of the bad element in the named argument's own array
-/// (or the output index when the error names no input; none for all-scalar inputs).
+/// (or the output index when the error names no input, or names an input given as a
+/// scalar while others are arrays, as when `rs` = 400 exceeds the 3rd of an array of `rsi`;
+/// none for all-scalar inputs).
 fn locate(
     e: Error,
     names: &[&str],
@@ -162,9 +164,8 @@ fn locate(
     match &e {
         Error::InvalidArgument { arg, .. } => match names.iter().position(|n| n == arg) {
             Some(i) if !shapes[i].is_empty() => e.at_index(&own_index(shapes[i], multi)),
-            Some(_) => e,
-            None if !shape.is_empty() => e.at_index(multi),
-            None => e,
+            _ if !shape.is_empty() => e.at_index(multi),
+            _ => e,
         },
         _ => e,
     }
@@ -548,6 +549,31 @@ mod tests {
         assert_eq!(
             err,
             Error::invalid("p", -2.0, "must be finite and > 0").at_index(&[1, 0])
+        );
+    }
+
+    #[test]
+    fn error_naming_a_scalar_argument_reports_the_output_index() {
+        // `rs` is one number, `rsi` an array: the error names `rs` (the rule it breaks is
+        // rs <= rsi) and must still say which element of the call failed.
+        let rs = arr0(400.0).into_dyn();
+        let rsi = arr1(&[600.0, 500.0, 300.0]).into_dyn();
+        let err = lift(
+            ["rs", "rsi"],
+            [rs.view(), rsi.view()],
+            OnError::Raise,
+            |[rs, rsi]| {
+                if rs > rsi {
+                    Err(Error::invalid("rs", rs, "must not exceed rsi"))
+                } else {
+                    Ok(rsi - rs)
+                }
+            },
+        )
+        .unwrap_err();
+        assert_eq!(
+            err,
+            Error::invalid("rs", 400.0, "must not exceed rsi").at_index(&[2])
         );
     }
 

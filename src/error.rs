@@ -31,6 +31,17 @@ impl fmt::Display for Index {
     }
 }
 
+/// A value for a message: as `{}` prints it, but in exponent form where that would run to
+/// more than about 16 digits (`1e300`, not three hundred of them; `5e-324`, not 0.000...).
+fn number(v: f64) -> String {
+    let a = v.abs();
+    if a != 0.0 && a.is_finite() && !(1e-5..1e16).contains(&a) {
+        format!("{v:e}")
+    } else {
+        format!("{v}")
+    }
+}
+
 fn at(index: &Option<Index>) -> String {
     match index {
         Some(i) => format!(" at index {i}"),
@@ -43,7 +54,7 @@ fn at(index: &Option<Index>) -> String {
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum Error {
     /// A physically impossible or otherwise invalid numeric input.
-    #[error("invalid `{arg}` = {value}{}: {reason}", at(index))]
+    #[error("invalid `{arg}` = {}{}: {reason}", number(*value), at(index))]
     InvalidArgument {
         /// Name of the argument as the user passed it (e.g. `"p"`, `"gas_sg"`).
         arg: &'static str,
@@ -207,6 +218,19 @@ mod tests {
         );
         let e = Error::invalid("p", -3.0, "must be > 0").at_index(&[7]);
         assert_eq!(e.to_string(), "invalid `p` = -3 at index 7: must be > 0");
+    }
+
+    #[test]
+    fn extreme_values_print_in_exponent_form() {
+        // Display of 1e300 is 301 digits; messages keep them short.
+        let e = Error::invalid("step_days", 1e-300, "must be > 0");
+        assert_eq!(e.to_string(), "invalid `step_days` = 1e-300: must be > 0");
+        let e = Error::invalid("p", -1e300, "must be > 0");
+        assert_eq!(e.to_string(), "invalid `p` = -1e300: must be > 0");
+        let e = Error::invalid("p", 0.25, "must be > 0");
+        assert_eq!(e.to_string(), "invalid `p` = 0.25: must be > 0");
+        let e = Error::invalid("p", f64::NAN, "must be > 0");
+        assert_eq!(e.to_string(), "invalid `p` = NaN: must be > 0");
     }
 
     #[test]

@@ -163,7 +163,10 @@ def _group(well: Any, t_days: np.ndarray) -> Tuple[np.ndarray, Optional[np.ndarr
         starts = np.flatnonzero(keys[1:] != keys[:-1]) + 1 if n else np.zeros(0, np.int64)
         offsets = np.concatenate([[0], starts, [n]]).astype(np.int64) if n else np.zeros(1, np.int64)
         return keys[offsets[:-1]], None, offsets
-    uniques, codes = np.unique(keys, return_inverse=True)
+    try:
+        uniques, codes = np.unique(keys, return_inverse=True)
+    except TypeError as e:  # e.g. None among strings: say which argument
+        raise TypeError(f"`well` keys must be mutually sortable (one type, no None): {e}") from e
     codes = codes.reshape(-1)
     order = np.argsort(codes, kind="stable")
     counts = np.bincount(codes, minlength=len(uniques))

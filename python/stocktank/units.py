@@ -29,7 +29,7 @@ import math
 import types
 from typing import Any, Callable, Dict, Mapping, Optional, Tuple, Union
 
-from ._core import ALL_UNITS, convert_units, rebase_gas_volume, unit_factor, unit_quantity
+from ._core import ALL_UNITS, InvalidOptionError, convert_units, rebase_gas_volume, unit_factor, unit_quantity
 
 __all__ = [
     "convert",
@@ -113,7 +113,11 @@ class UnitSystem:
                 raise ValueError(f"unknown role `{role}`; expected one of: {', '.join(FIELD)}")
             chosen[role] = unit
         for role, unit in chosen.items():
-            unit_factor(unit, FIELD[role])  # raises naming the unit if it does not fit the role
+            try:
+                unit_factor(unit, FIELD[role])
+            except InvalidOptionError as e:
+                # unit_factor's message names its own `from_unit`; name the role instead.
+                raise InvalidOptionError(f"invalid unit for role `{role}`: {e}") from e
         self.units: Dict[str, str] = chosen
 
     def __repr__(self) -> str:

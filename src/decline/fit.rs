@@ -2,8 +2,8 @@
 //!
 //! # Method
 //! For one well, with records `(t_i, q_i)` (days, rate per day):
-//! 1. Records are sorted by time. A negative rate, a non-finite time or a repeated time
-//!    makes the well [`FitStatus::InvalidData`]. NaN rates (missing months) and rates equal
+//! 1. Records are sorted by time. A negative or infinite rate, a non-finite time or a
+//!    repeated time makes the well [`FitStatus::InvalidData`]. NaN rates (missing months) and rates equal
 //!    to zero (shut-in months) are left out of the fit; calendar time is kept, so the decline
 //!    continues through a shut-in.
 //! 2. The decline starts at the peak producing rate ([`Start::Peak`], which skips an early
@@ -261,7 +261,7 @@ pub enum FitStatus {
     TooFewPoints,
     /// The log rate rises from the start on: there is no decline to fit.
     NotDeclining,
-    /// A negative rate, a non-finite time or a repeated time.
+    /// A negative or infinite rate, a non-finite time or a repeated time.
     InvalidData,
     /// The minimiser produced no finite optimum.
     Failed,
@@ -826,6 +826,14 @@ fn fit_checked(t: &[f64], q: &[f64], start_time: Option<f64>, opts: &FitOptions)
                     "negative rate {} at the well's record {i} (time {})",
                     q[i], t[i]
                 ),
+            );
+        }
+        if q[i] == f64::INFINITY {
+            // Not a missing month (NaN): an overflowed or mistyped rate, which would
+            // otherwise turn the trend test into NaN and report "not declining".
+            return WellFit::failed(
+                FitStatus::InvalidData,
+                format!("infinite rate at the well's record {i} (time {})", t[i]),
             );
         }
         if k > 0 && t[order[k - 1]] == t[i] {

@@ -40,7 +40,8 @@ pub struct ForecastStep {
 /// The steps, possibly none (when `t_from >= t_end`).
 ///
 /// # Errors
-/// [`Error::InvalidArgument`] naming `t_from`, `q_limit`, `t_max` or `step_days`.
+/// [`Error::InvalidArgument`] naming `t_from`, `q_limit`, `t_max` or `step_days` (also when the
+/// table would have more than [`MAX_FORECAST_STEPS`] steps).
 ///
 /// # Examples
 /// ```
@@ -72,7 +73,18 @@ pub fn forecast(
     if t_from >= t_end {
         return Ok(out);
     }
-    let n = ((t_end - t_from) / step_days).ceil() as usize;
+    let steps = ((t_end - t_from) / step_days).ceil();
+    if steps > MAX_FORECAST_STEPS as f64 {
+        // A table this long is a mistake in `step_days` or `t_max` (the rows would not fit
+        // in memory; reserving them would abort the process).
+        return Err(Error::invalid(
+            "step_days",
+            step_days,
+            "gives more than 10,000,000 forecast steps per decline up to t_max or the \
+             economic limit; use a longer step or a nearer t_max",
+        ));
+    }
+    let n = steps as usize;
     out.reserve(n);
     let mut np_prev = arps.cumulative(t_from)?;
     let np0 = np_prev;
@@ -159,6 +171,14 @@ pub fn forecast_many(
     }
     Ok((idx, rows))
 }
+
+/// Most steps one forecast table may have (10,000,000: daily steps for 27,000 years).
+///
+/// # Examples
+/// ```
+/// assert_eq!(stocktank::decline::MAX_FORECAST_STEPS, 10_000_000);
+/// ```
+pub const MAX_FORECAST_STEPS: usize = 10_000_000;
 
 /// Default forecast step: one average month, days.
 pub const MONTH_STEP_DAYS: f64 = DAYS_PER_MONTH;

@@ -26,7 +26,7 @@ pub use arps::{
     rate_at_cumulative_array, remaining, remaining_array, time_to_rate, time_to_rate_array,
 };
 pub use fit::{FitOptions, FitStatus, Loss, Start, WellFit, fit_well, fit_wells};
-pub use forecast::{ForecastStep, MONTH_STEP_DAYS, forecast, forecast_many};
+pub use forecast::{ForecastStep, MAX_FORECAST_STEPS, MONTH_STEP_DAYS, forecast, forecast_many};
 
 #[cfg(test)]
 mod tests {

@@ -63,7 +63,7 @@ pub use pseudo_critical::{
     carr_kobayashi_burrows_correction, check_impurities, hydrocarbon_mixing, kay, riazi_daubert,
     standing_condensate, standing_natural, sutton, wichert_aziz,
 };
-pub use pseudo_pressure::PSEUDO_PRESSURE_STEP_PSIA;
+pub use pseudo_pressure::{PSEUDO_PRESSURE_MAX_PIECES, PSEUDO_PRESSURE_STEP_PSIA};
 pub(crate) use viscosity::LeeGonzalezEakin;
 pub use viscosity::{
     ViscosityMethod, dempsey_in_range, lee_gonzalez_eakin_in_range, viscosity_lee_gonzalez_eakin,

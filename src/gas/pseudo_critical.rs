@@ -246,9 +246,18 @@ pub fn check_impurities(co2: f64, h2s: f64, n2: f64) -> Result<()> {
     fraction("h2s", h2s)?;
     fraction("n2", n2)?;
     if co2 + h2s + n2 > 1.0 + 1e-12 {
+        // Name the last non-zero fraction: callers without an `n2` argument (Wichert–Aziz)
+        // must not be told about one.
+        let (arg, value) = if n2 > 0.0 {
+            ("n2", n2)
+        } else if h2s > 0.0 {
+            ("h2s", h2s)
+        } else {
+            ("co2", co2)
+        };
         return Err(Error::invalid(
-            "n2",
-            n2,
+            arg,
+            value,
             "mole fractions co2 + h2s + n2 must not sum above 1",
         ));
     }
@@ -320,7 +329,8 @@ pub fn wichert_aziz(pc: PseudoCritical, co2: f64, h2s: f64) -> Result<PseudoCrit
 /// Corrected Tpc (degR) and Ppc (psia).
 ///
 /// # Errors
-/// [`Error::InvalidArgument`] naming the fraction outside [0, 1] (or `n2` if they sum above 1).
+/// [`Error::InvalidArgument`] naming the fraction outside [0, 1] (or the last non-zero one
+/// if they sum above 1).
 ///
 /// # Examples
 /// ```

@@ -28,6 +28,16 @@ const GL_W: [f64; 4] = [
 /// ```
 pub const PSEUDO_PRESSURE_STEP_PSIA: f64 = 100.0;
 
+/// Most quadrature pieces between two pressures (so pieces are wider than
+/// [`PSEUDO_PRESSURE_STEP_PSIA`] only for gaps above 2,000,000 psi, far outside any
+/// correlation; without a cap, p = 1e10 psia would take hours).
+///
+/// # Examples
+/// ```
+/// assert_eq!(stocktank::gas::PSEUDO_PRESSURE_MAX_PIECES, 20_000);
+/// ```
+pub const PSEUDO_PRESSURE_MAX_PIECES: usize = 20_000;
+
 impl Gas {
     /// The integrand 2 p / (mu Z) of the pseudo-pressure at `p_psia` and `t_f`, psia/cp.
     ///
@@ -46,12 +56,14 @@ impl Gas {
     }
 
     /// 2 ∫_a^b p / (mu Z) dp by composite 8-point Gauss–Legendre on pieces no wider than
-    /// [`PSEUDO_PRESSURE_STEP_PSIA`].
+    /// [`PSEUDO_PRESSURE_STEP_PSIA`] (at most [`PSEUDO_PRESSURE_MAX_PIECES`] pieces).
     fn integrate(&self, a: f64, b: f64, t_f: f64) -> Result<f64> {
         if b <= a {
             return Ok(0.0);
         }
-        let n = ((b - a) / PSEUDO_PRESSURE_STEP_PSIA).ceil().max(1.0) as usize;
+        let n = ((b - a) / PSEUDO_PRESSURE_STEP_PSIA)
+            .ceil()
+            .clamp(1.0, PSEUDO_PRESSURE_MAX_PIECES as f64) as usize;
         let h = (b - a) / n as f64;
         let mut sum = 0.0;
         for k in 0..n {
@@ -85,7 +97,9 @@ impl Gas {
     /// m(p) in psia^2/cp, in the shape of `p_psia`.
     ///
     /// # Errors
-    /// [`Error::InvalidArgument`] naming `p_psia` (with index) or `t_f`.
+    /// [`Error::InvalidArgument`] naming `p_psia` (with index) or `t_f`; the Z-factor's or
+    /// viscosity's error for a pressure they reject, with the index of the first pressure
+    /// whose integral reaches it (with [`OnError::Coerce`]: NaN from that pressure up).
     ///
     /// # Examples
     /// ```
@@ -144,10 +158,27 @@ impl Gas {
                 self.integrate(a, nodes[i], t_f)
             })
             .collect();
+        // A piece that fails (the Z-factor or viscosity rejects a pressure inside it) fails
+        // every pressure from its upper end on: NaN there with `Coerce`; with `Raise`, the
+        // error carries the index of the first such pressure.
         let mut cumulative = Vec::with_capacity(nodes.len());
         let mut acc = 0.0;
-        for piece in pieces {
-            acc += piece?;
+        for (i, piece) in pieces.into_iter().enumerate() {
+            match piece {
+                Ok(v) => acc += v,
+                Err(_) if on_error == OnError::Coerce => acc = f64::NAN,
+                Err(e) => {
+                    let k = order.iter().copied().find(|&k| flat[k] == nodes[i]);
+                    return Err(match k {
+                        Some(k) if !shape.is_empty() => {
+                            let mut multi = vec![0usize; shape.len()];
+                            crate::array::unravel(k, &shape, &mut multi);
+                            e.at_index(&multi)
+                        }
+                        _ => e,
+                    });
+                }
+            }
             cumulative.push(acc);
         }
         let mut out = vec![f64::NAN; flat.len()];

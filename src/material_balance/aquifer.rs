@@ -547,25 +547,34 @@ fn check_red(red: f64) -> Result<()> {
 /// Laplace transform of the dimensionless cumulative influx WD (constant terminal pressure)
 /// of a radial aquifer, infinite (`red` = inf) or closed at reD.
 fn wd_bar(s: f64, red: f64) -> f64 {
+    s32_wd_bar(s, red) / (s * s.sqrt())
+}
+
+/// Laplace transform of the dimensionless pressure pD (constant terminal rate),
+/// 1 / (s^3 WD_bar) = 1 / (s^1.5 (s^1.5 WD_bar)): zero, not NaN, where s^3 overflows.
+fn pd_bar(s: f64, red: f64) -> f64 {
+    1.0 / (s * s.sqrt() * s32_wd_bar(s, red))
+}
+
+/// s^1.5 WD_bar(s), free of the s^1.5 factor that overflows at huge s (tiny tD).
+fn s32_wd_bar(s: f64, red: f64) -> f64 {
     let x = s.sqrt();
     let (i0x, i1x) = i01_scaled(x);
     let (k0x, k1x) = k01_scaled(x);
-    let s32 = s * x;
     if red.is_infinite() {
-        return k1x / (s32 * k0x);
+        return k1x / k0x;
     }
     let r = red * x;
     let (_, i1r) = i01_scaled(r);
     let (_, k1r) = k01_scaled(r);
-    // Divide numerator and denominator by I1(R) e^{...}; ratio = K1(R)/I1(R) scaled back.
-    // With I(x) = Is(x) e^x and K(x) = Ks(x) e^-x:
-    // num = I1(R) K1(x) - K1(R) I1(x);  den = s^1.5 [I0(x) K1(R) + K0(x) I1(R)]
-    // divided by I1(R) e^{-x} ... keep exponents explicit:
-    let ratio = k1r / i1r * (-2.0 * r).exp(); // K1(R)/I1(R)
-    let e2x = (2.0 * x).exp(); // I(x)/K(x) scale: I(x)=Is e^x, K(x)=Ks e^-x
-    // num / e^-x = K1s(x) - ratio * I1s(x) e^{2x};  den / e^-x = s^1.5 [ratio I0s(x) e^{2x} + K0s(x)]
-    let num = k1x - ratio * i1x * e2x;
-    let den = s32 * (ratio * i0x * e2x + k0x);
+    // With I(x) = Is(x) e^x and K(x) = Ks(x) e^-x, divide numerator and denominator by
+    // I1(R) e^-x: num = K1s(x) - q I1s(x), den = q I0s(x) + K0s(x), where
+    // q = K1(R)/I1(R) e^{2x} = K1s(R)/I1s(R) e^{2(x - R)}. One exponential (R > x, so it
+    // only underflows, harmlessly) instead of e^{-2R} times e^{2x}, which gave 0 x inf = NaN
+    // for x above ~350 (tD below ~1e-4).
+    let q = k1r / i1r * (2.0 * (x - r)).exp();
+    let num = k1x - q * i1x;
+    let den = q * i0x + k0x;
     num / den
 }
 
@@ -609,6 +618,9 @@ fn wd_bar(s: f64, red: f64) -> f64 {
 pub fn veh_dimensionless_influx(td: f64, red: f64) -> Result<f64> {
     check_red(red)?;
     positive("td", td)?;
+    if td < EARLY_TD {
+        return Ok(early_time(td));
+    }
     let w = weights();
     stehfest_invert(|s| wd_bar(s, red), td, &w)
 }
@@ -645,8 +657,21 @@ pub fn veh_dimensionless_influx(td: f64, red: f64) -> Result<f64> {
 pub fn veh_dimensionless_pressure(td: f64, red: f64) -> Result<f64> {
     check_red(red)?;
     positive("td", td)?;
+    if td < EARLY_TD {
+        return Ok(early_time(td));
+    }
     let w = weights();
-    stehfest_invert(|s| 1.0 / (s * s * s * wd_bar(s, red)), td, &w)
+    stehfest_invert(|s| pd_bar(s, red), td, &w)
+}
+
+/// Below this tD both WD and pD are 2 sqrt(tD / pi) to double precision (the next term,
+/// tD / 2, is sqrt(pi tD) / 4 ~ 4e-16 of it), and the Laplace variable s ~ 1 / tD of the
+/// inversion would overflow for the tiniest tD.
+const EARLY_TD: f64 = 1e-30;
+
+/// Early-time WD and pD of a radial aquifer: 2 sqrt(tD / pi) (van Everdingen & Hurst 1949).
+fn early_time(td: f64) -> f64 {
+    2.0 * (td / std::f64::consts::PI).sqrt()
 }
 
 fn weights() -> Vec<f64> {
@@ -687,7 +712,7 @@ impl DimensionlessTable {
             let td = (x0 + dx * k as f64).exp();
             let v = match kind {
                 Kind::Influx => stehfest_invert(|s| wd_bar(s, red), td, &w)?,
-                Kind::Pressure => stehfest_invert(|s| 1.0 / (s * s * s * wd_bar(s, red)), td, &w)?,
+                Kind::Pressure => stehfest_invert(|s| pd_bar(s, red), td, &w)?,
             };
             y.push(v.ln());
         }

@@ -382,7 +382,7 @@ pub struct GasHistoryMatch {
 /// [`Error::OutOfRange`] when it does not cover `p_initial`; [`Error::Singular`] when the
 /// parameters cannot be separated (its message names the most nearly collinear pair and
 /// the condition number); [`Error::Shape`] when there are not more rows than parameters;
-/// [`Error::InvalidArgument`] naming `confidence` or an aquifer parameter.
+/// [`Error::InvalidArgument`] naming `confidence`, `tolerance` or an aquifer parameter.
 ///
 /// # Examples
 /// ```

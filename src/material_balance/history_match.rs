@@ -897,7 +897,7 @@ fn withdrawal_solution(
 /// points at one pressure, or a singular Jacobian at the solution, whose message names the
 /// most nearly collinear pair and the condition number); [`Error::InvalidRecord`]
 /// for history rows the PVT table does not cover; [`Error::InvalidArgument`] naming `m`,
-/// `confidence` or an aquifer parameter; [`Error::Shape`] when there are not more rows
+/// `confidence`, `tolerance` or an aquifer parameter; [`Error::Shape`] when there are not more rows
 /// than parameters.
 ///
 /// # Examples
@@ -950,6 +950,9 @@ pub(super) fn check_options(options: &HistoryMatchOptions) -> Result<()> {
             "must lie in (0, 1)",
         ));
     }
+    // A NaN or negative tolerance would never (or always) stop the solver, yet it reported
+    // convergence.
+    crate::error::positive("tolerance", options.tolerance)?;
     if let Some(m) = options.m {
         non_negative("m", m)?;
     }

@@ -156,14 +156,25 @@ pub(crate) fn i01_scaled(x: f64) -> (f64, f64) {
 /// 9.6.24) by the trapezoidal rule, which converges geometrically for this analytic,
 /// doubly-exponentially decaying integrand (Trefethen & Weideman 2014, SIAM Review 56(3));
 /// the step min(0.125, 0.6 / sqrt x) resolves the peak of width 1/sqrt(x) and gives about
-/// 1e-15 relative.
+/// 1e-15 relative. The exponent uses cosh t - 1 = 2 sinh^2(t/2), which keeps its value for
+/// the tiny steps of huge x (where `cosh t` rounds to 1 and the sum would never decay).
 pub(crate) fn k01_scaled(x: f64) -> (f64, f64) {
+    // The step below must be positive and finite, or the loop would not end.
+    if x.is_nan() {
+        return (f64::NAN, f64::NAN);
+    }
+    if x == f64::INFINITY {
+        return (0.0, 0.0); // e^x K(x) ~ sqrt(pi / (2x)) -> 0
+    }
     let h = 0.125f64.min(0.6 / x.sqrt());
     let (mut s0, mut s1) = (0.5, 0.5);
     let mut t: f64 = h;
     loop {
-        let c = t.cosh();
-        let e = (-x * (c - 1.0)).exp();
+        // cosh t - 1 = 2 sinh^2(t/2), and cosh t from it: one hyperbolic call, as before.
+        let sh = (0.5 * t).sinh();
+        let cm1 = 2.0 * sh * sh;
+        let c = 1.0 + cm1;
+        let e = (-x * cm1).exp();
         s0 += e;
         s1 += e * c;
         if e < 1e-18 * s0 {
@@ -192,6 +203,18 @@ mod tests {
         let (k0, k1) = k01_scaled(1.0);
         assert!((k0 / e - 0.421_024_438_2).abs() < 1e-10);
         assert!((k1 / e - 0.601_907_230_2).abs() < 1e-10);
+    }
+
+    #[test]
+    fn k_of_huge_argument_ends_and_keeps_the_wronskian() {
+        // x = 1e150 (tD ~ 1e-300 in a Stehfest inversion) used to loop ~1e77 times, as
+        // cosh(h) rounded to 1. e^x K1(x) -> sqrt(pi / (2x)) (A&S 9.7.2).
+        for &x in &[1e20, 1e150, 1e300] {
+            let (i0, i1) = i01_scaled(x);
+            let (k0, k1) = k01_scaled(x);
+            assert!((k1 / (std::f64::consts::PI / (2.0 * x)).sqrt() - 1.0).abs() < 1e-12);
+            assert!(((i0 * k1 + i1 * k0) * x - 1.0).abs() < 1e-12, "x = {x}");
+        }
     }
 
     #[test]

@@ -287,15 +287,19 @@ fn fit_decline_batch<'py>(
     di_min: f64,
     di_max: f64,
     start: &str,
-    min_points: usize,
+    min_points: i128,
     q_limit: f64,
     d_min: f64,
     horizon_years: f64,
-    n_bootstrap: usize,
-    seed: u64,
-    max_iter: usize,
+    n_bootstrap: i128,
+    seed: i128,
+    max_iter: i128,
     tol: f64,
 ) -> PyResult<Bound<'py, PyDict>> {
+    let min_points: usize = super::whole("min_points", min_points)?;
+    let n_bootstrap: usize = super::whole("n_bootstrap", n_bootstrap)?;
+    let seed: u64 = super::whole("seed", seed)?;
+    let max_iter: usize = super::whole("max_iter", max_iter)?;
     let opts = FitOptions {
         loss: Loss::parse(loss)?,
         f_scale,
@@ -311,6 +315,12 @@ fn fit_decline_batch<'py>(
         max_iter,
         tol,
     };
+    // Each thread holds one well's bootstrap EURs at a time.
+    super::check_memory(
+        "n_bootstrap",
+        n_bootstrap,
+        rayon::current_num_threads().max(1) * std::mem::size_of::<f64>(),
+    )?;
     let tv = to_vec(&t, "t")?;
     let qv = to_vec(&q, "q")?;
     let mut off = Vec::with_capacity(offsets.len()?);

@@ -175,8 +175,24 @@ impl PvtTable {
     fn bt(&self, py: Python<'_>, p: In<'_>, p_initial: f64, errors: &str) -> PyResult<Py<PyAny>> {
         let oe = on_error(errors)?;
         let t = self.inner.clone();
+        // Errors name the argument that is off the table (`p` with its index, or
+        // `p_initial`), as `at` does, instead of an unindexed "out of range".
+        let outside = "lies outside the PVT table's pressure range";
+        t.at(p_initial).map_err(|_| {
+            let reason = if p_initial.is_nan() {
+                "must not be NaN"
+            } else {
+                outside
+            };
+            Error::invalid("p_initial", p_initial, reason)
+        })?;
         call(py, [&p], move |[p]| {
-            lift(["p"], [p], oe, |[p]| t.bt(p, p_initial))
+            lift(["p"], [p], oe, |[p]| {
+                t.bt(p, p_initial).map_err(|e| match e {
+                    Error::OutOfRange(_) => Error::invalid("p", p, outside),
+                    o => o,
+                })
+            })
         })
     }
     fn __eq__(&self, other: &Bound<'_, PyAny>) -> bool {
@@ -534,9 +550,31 @@ fn hist(
     })
 }
 
+/// `message` with each quoted core name `` `from` `` replaced by the Python keyword `` `to` ``.
+fn rename_in(message: String, names: &[(&str, &str)]) -> String {
+    names.iter().fold(message, |m, (from, to)| {
+        m.replace(&format!("`{from}`"), &format!("`{to}`"))
+    })
+}
+
+/// The keys of a history dict of `history_match_batch`.
+const HISTORY_KEYS: [&str; 7] = [
+    "t_days", "p", "np_stb", "gp_scf", "wp_stb", "wi_stb", "gi_scf",
+];
+
+/// History column names of the core (`np`, `gp`, ...) as the Python keywords.
+const HISTORY_NAMES: [(&str, &str); 5] = [
+    ("np", "np_stb"),
+    ("gp", "gp_scf"),
+    ("wp", "wp_stb"),
+    ("wi", "wi_stb"),
+    ("gi", "gi_scf"),
+];
+
 /// Column names in errors as the Python user typed them.
 fn rename_cols(e: Error) -> Error {
     match e {
+        Error::Shape(m) => Error::Shape(rename_in(m, &HISTORY_NAMES)),
         Error::InvalidRecord { arg, row, message } => Error::InvalidRecord {
             arg: match arg.as_str() {
                 "np" => "np_stb".into(),
@@ -818,10 +856,11 @@ fn match_options(
     fit_shape: bool,
     fit_red: bool,
     objective: &str,
-    max_iterations: usize,
+    max_iterations: i128,
     tolerance: f64,
     confidence: f64,
 ) -> PyResult<mb::HistoryMatchOptions> {
+    let max_iterations: usize = super::whole("max_iterations", max_iterations)?;
     let objective = match objective {
         "pressure" => mb::Objective::Pressure,
         "withdrawal" => mb::Objective::Withdrawal,
@@ -950,7 +989,7 @@ fn history_match<'py>(
     fit_shape: bool,
     fit_red: bool,
     objective: &str,
-    max_iterations: usize,
+    max_iterations: i128,
     tolerance: f64,
     confidence: f64,
 ) -> PyResult<Bound<'py, PyDict>> {
@@ -975,7 +1014,7 @@ fn history_match<'py>(
 /// Batch history match in parallel (all cores, GIL released). ``pvts`` and ``histories``
 /// are equal-length lists (a history is a dict with the keyword arrays of
 /// :func:`history_match`: ``t_days``, ``p``, ``np_stb``, ``gp_scf`` and optionally
-/// ``wp_stb``, ``wi_stb``, ``gi_scf``); ``p_initial``, ``swi``, ``cw``, ``cf`` are lists of
+/// ``wp_stb``, ``wi_stb``, ``gi_scf``; any other key is an error); ``p_initial``, ``swi``, ``cw``, ``cf`` are lists of
 /// the same length. Returns a list of result dicts, or of exceptions where
 /// ``errors="coerce"`` (with ``"raise"`` the first failure raises).
 #[pyfunction]
@@ -994,7 +1033,7 @@ fn history_match_batch<'py>(
     fit_shape: bool,
     fit_red: bool,
     objective: &str,
-    max_iterations: usize,
+    max_iterations: i128,
     tolerance: f64,
     confidence: f64,
     errors: &str,
@@ -1037,6 +1076,24 @@ fn history_match_batch<'py>(
             })
         };
         let conv = (|| -> PyResult<Hist> {
+            // A misspelt key (e.g. "wp_stbb") would silently drop its column.
+            for k in d.keys() {
+                let known = k
+                    .extract::<String>()
+                    .is_ok_and(|k| HISTORY_KEYS.contains(&k.as_str()));
+                if !known {
+                    return Err(Error::InvalidRecord {
+                        arg: "histories".into(),
+                        row: i,
+                        message: format!(
+                            "unknown key {}; the keys are {}",
+                            k.repr()?,
+                            HISTORY_KEYS.join(", ")
+                        ),
+                    }
+                    .into());
+                }
+            }
             hist(
                 &req("t_days")?,
                 &req("p")?,
@@ -1139,6 +1196,7 @@ fn pz_fit<'py>(
 
 fn rename_gas(e: Error) -> Error {
     match e {
+        Error::Shape(m) => Error::Shape(rename_in(m, &HISTORY_NAMES)),
         Error::InvalidRecord { arg, row, message } if arg == "gp" => Error::InvalidRecord {
             arg: "gp_scf".into(),
             row,
@@ -1311,7 +1369,7 @@ fn gas_history_match<'py>(
     fit_red: bool,
     fit_ce: bool,
     objective: &str,
-    max_iterations: usize,
+    max_iterations: i128,
     tolerance: f64,
     confidence: f64,
     p_sc: f64,
@@ -1339,6 +1397,10 @@ fn gas_history_match<'py>(
             row,
             message,
         },
+        Error::Shape(m) => Error::Shape(rename_in(
+            m,
+            &[("p", "table_p"), ("z", "table_z"), ("bg", "table_bg")],
+        )),
         o => o,
     })?;
     let history = mb::GasHistory::new(
@@ -1366,7 +1428,7 @@ fn gas_history_match<'py>(
         fit_red,
         fit_ce,
         objective: o.objective,
-        max_iterations,
+        max_iterations: o.max_iterations,
         tolerance,
         confidence,
     };
@@ -1389,10 +1451,13 @@ fn muskat_forecast<'py>(
     relperm: PyRef<'py, super::relperm::CoreyGasOil>,
     p_bubble: f64,
     p_end: f64,
-    n_steps: usize,
+    n_steps: i128,
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
+    let n_steps: usize = super::whole("n_steps", n_steps)?;
+    // A row of a dozen numbers per step.
+    super::check_memory("n_steps", n_steps, 16 * std::mem::size_of::<f64>())?;
     let f = py.detach(|| mb::muskat_forecast(table, &k, p_bubble, p_end, n_steps))?;
     forecast_dict(py, f)
 }
@@ -1423,10 +1488,13 @@ fn tarner_forecast<'py>(
     relperm: PyRef<'py, super::relperm::CoreyGasOil>,
     p_bubble: f64,
     p_end: f64,
-    n_steps: usize,
+    n_steps: i128,
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
+    let n_steps: usize = super::whole("n_steps", n_steps)?;
+    // A row of a dozen numbers per step.
+    super::check_memory("n_steps", n_steps, 16 * std::mem::size_of::<f64>())?;
     let f = py.detach(|| mb::tarner_forecast(table, &k, p_bubble, p_end, n_steps))?;
     let d = forecast_dict(py, f.forecast)?;
     let it: Vec<u64> = f.iterations.iter().map(|&v| v as u64).collect();

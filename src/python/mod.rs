@@ -88,6 +88,54 @@ impl From<Error> for PyErr {
 
 pub(crate) use threads::detach;
 
+/// A count, seed or iteration limit as an unsigned integer: a negative (or beyond 2^64)
+/// Python int is an [`Error::InvalidArgument`] naming `arg`, not the `OverflowError`
+/// "can't convert negative int to unsigned" of a direct `usize`/`u64` extraction.
+pub(crate) fn whole<T: TryFrom<i128>>(arg: &'static str, v: i128) -> PyResult<T> {
+    T::try_from(v).map_err(|_| {
+        Error::invalid(arg, v as f64, "must be a whole number from 0 to 2^64 - 1").into()
+    })
+}
+
+/// Fail with a Python `MemoryError` naming `arg` when `count` items of about `bytes_each`
+/// bytes cannot be allocated, found by reserving (and at once releasing) that much; the
+/// allocation inside the work would abort the process or panic ("capacity overflow")
+/// instead. Like numpy's `MemoryError` for an impossible array; no memory is touched.
+pub(crate) fn check_memory(arg: &str, count: usize, bytes_each: usize) -> PyResult<()> {
+    let bytes = count.checked_mul(bytes_each);
+    if bytes.is_some_and(|b| Vec::<u8>::new().try_reserve_exact(b).is_ok()) {
+        Ok(())
+    } else {
+        Err(pyo3::exceptions::PyMemoryError::new_err(format!(
+            "`{arg}` = {count} needs about {} bytes, more than can be allocated",
+            bytes.map_or_else(|| "2^64 or more".to_string(), |b| b.to_string())
+        )))
+    }
+}
+
+/// An [`Error::InvalidArgument`] whose core argument name is `from` renamed to the Python
+/// keyword `to`, for each pair of `names` (other errors pass through): the message must name
+/// what the user typed.
+pub(crate) fn rename_arg(e: Error, names: &[(&'static str, &'static str)]) -> Error {
+    match e {
+        Error::InvalidArgument {
+            arg,
+            value,
+            reason,
+            index,
+        } => Error::InvalidArgument {
+            arg: names
+                .iter()
+                .find(|(from, _)| *from == arg)
+                .map_or(arg, |(_, to)| *to),
+            value,
+            reason,
+            index,
+        },
+        other => other,
+    }
+}
+
 /// Any array-like input (float, int, list, any-dtype array), converted to float64.
 pub(crate) type In<'py> = PyArrayLikeDyn<'py, f64, AllowTypeChange>;
 

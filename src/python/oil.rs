@@ -193,12 +193,21 @@ fn vasquez_beggs_gas_sg_100psig(
     let oe = on_error(errors)?;
     call(py, [&gas_sg, &api, &separator_t, &separator_p], move |v| {
         lift(
-            ["gas_sg", "api", "tsep_f", "psep_psia"],
+            ["gas_sg", "api", "separator_t", "separator_p"],
             v,
             oe,
-            |[g, a, t, p]| core::vasquez_beggs_gas_sg_100psig(g, a, t, p),
+            |[g, a, t, p]| core::vasquez_beggs_gas_sg_100psig(g, a, t, p).map_err(separator_names),
         )
     })
+}
+
+/// The core names the separator conditions `tsep_f` and `psep_psia`; errors name them as
+/// the Python user typed them.
+fn separator_names(e: crate::Error) -> crate::Error {
+    super::rename_arg(
+        e,
+        &[("tsep_f", "separator_t"), ("psep_psia", "separator_p")],
+    )
 }
 
 /// Saturated oil FVF, rb/STB.
@@ -629,8 +638,9 @@ impl Oil {
             separator(separator_p, separator_t)?,
             salinity_wt_pct,
             sc(p_sc, t_sc)?,
-        )?;
-        o.model()?;
+        )
+        .map_err(separator_names)?;
+        o.model().map_err(separator_names)?;
         Ok(Self(o))
     }
     #[getter]

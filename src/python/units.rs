@@ -44,8 +44,10 @@ fn rebase_gas_volume(
     to_p_sc: f64,
     to_t_sc: f64,
 ) -> PyResult<Py<PyAny>> {
-    let a: StandardConditions = standard_conditions(from_p_sc, from_t_sc)?;
-    let b: StandardConditions = standard_conditions(to_p_sc, to_t_sc)?;
+    let a: StandardConditions = standard_conditions(from_p_sc, from_t_sc)
+        .map_err(|e| super::rename_arg(e, &[("p_sc", "from_p_sc"), ("t_sc", "from_t_sc")]))?;
+    let b: StandardConditions = standard_conditions(to_p_sc, to_t_sc)
+        .map_err(|e| super::rename_arg(e, &[("p_sc", "to_p_sc"), ("t_sc", "to_t_sc")]))?;
     call(py, [&volume], move |[x]| {
         lift(["volume"], [x], OnError::Raise, |[x]| {
             convert::rebase_gas_volume(x, a, b)

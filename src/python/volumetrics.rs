@@ -406,10 +406,20 @@ impl Distribution {
     }
     /// ``n`` reproducible samples (same ``seed`` and ``stream``, same samples).
     #[pyo3(signature = (n, *, seed = 0, stream = 0))]
-    fn sample<'py>(&self, py: Python<'py>, n: usize, seed: u64, stream: u64) -> Bound<'py, PyAny> {
+    fn sample<'py>(
+        &self,
+        py: Python<'py>,
+        n: i128,
+        seed: i128,
+        stream: i128,
+    ) -> PyResult<Bound<'py, PyAny>> {
+        let n: usize = super::whole("n", n)?;
+        let seed: u64 = super::whole("seed", seed)?;
+        let stream: u64 = super::whole("stream", stream)?;
+        super::check_memory("n", n, std::mem::size_of::<f64>())?;
         let d = self.0;
         let x = detach(py, move || d.sample(n, seed, stream));
-        x.into_pyarray(py).into_any()
+        Ok(x.into_pyarray(py).into_any())
     }
     /// The canonical constructor keywords.
     fn params<'py>(&self, py: Python<'py>) -> PyResult<Bound<'py, PyDict>> {
@@ -521,9 +531,11 @@ fn probabilistic_in_place<'py>(
     net_to_gross: Option<&Bound<'py, PyAny>>,
     recovery_factor: Option<&Bound<'py, PyAny>>,
     correlation: Option<&Bound<'py, PyDict>>,
-    trials: usize,
-    seed: u64,
+    trials: i128,
+    seed: i128,
 ) -> PyResult<Bound<'py, PyDict>> {
+    let trials: usize = super::whole("trials", trials)?;
+    let seed: u64 = super::whole("seed", seed)?;
     let fl = match fluid {
         "oil" => Fluid::Oil,
         "gas" => Fluid::Gas,
@@ -567,6 +579,8 @@ fn probabilistic_in_place<'py>(
             Some(Correlation::from_pairs(&pairs)?)
         }
     };
+    // A column per input (up to 7) and the results, with their ranks: about 16 numbers a trial.
+    super::check_memory("trials", trials, 16 * std::mem::size_of::<f64>())?;
     let sim = detach(py, move || {
         v::probabilistic_in_place(fl, &inputs, corr.as_ref(), trials, seed)
     })?;
@@ -612,7 +626,8 @@ fn probabilistic_in_place<'py>(
 fn summarize<'py>(py: Python<'py>, samples: In<'py>) -> PyResult<Bound<'py, PyDict>> {
     let view = samples.as_array();
     let data: Vec<f64> = view.iter().copied().collect();
-    let s = detach(py, move || v::summarize(&data))?;
+    let s = detach(py, move || v::summarize(&data))
+        .map_err(|e| super::rename_arg(e, &[("data", "samples")]))?;
     summary(py, &s)
 }
 

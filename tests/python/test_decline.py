@@ -360,3 +360,50 @@ def test_rate_against_cumulative_and_remaining():
     # remaining = EUR - cumulative to date
     r = st.arps_remaining(qi, di, 0.7, 500.0, 5.0, d_min=0.06)
     assert r == pytest.approx(st.arps_eur(qi, di, 0.7, 5.0, d_min=0.06) - st.arps_cumulative(qi, di, 0.7, 500.0, d_min=0.06))
+
+
+# ---- robustness: unusual inputs (regressions) -----------------------------------------------
+
+
+def test_forecast_with_absurd_step_raises_instead_of_panicking():
+    # A step of 1e-300 days (or an endless horizon) asked for ~1e300 rows: the reservation
+    # panicked ("capacity overflow", a PanicException) or could abort the process.
+    args = ([1000.0], [0.5], [0.8], [0.0], [3650.0])
+    with pytest.raises(st.InvalidArgumentError, match="`step_days`.*10,000,000 forecast steps"):
+        st.forecast_batch(*args, step_days=1e-300)
+    with pytest.raises(st.InvalidArgumentError, match="`step_days`"):
+        st.forecast_batch([1000.0], [0.5], [0.8], [0.0], [1e300], q_limit=0.0)
+    # A daily table over ten years is fine (3,650 steps).
+    assert st.forecast_batch(*args, step_days=1.0)["t"].size == 3650
+
+
+def test_fit_flags_an_infinite_rate_as_invalid_data():
+    t = np.arange(24) * MONTH
+    q = 1000.0 * (1 + 0.8 * 0.5 * t / YEAR) ** (-1 / 0.8)
+    q[5] = np.inf
+    r = st.fit_decline_batch(t, q, np.array([0, 24]), n_bootstrap=5)
+    assert r["status"][0] == "invalid_data"
+    assert "infinite rate" in r["message"][0] and "record 5" in r["message"][0]
+    # A NaN rate is a missing month, as before.
+    q[5] = np.nan
+    assert st.fit_decline_batch(t, q, np.array([0, 24]), n_bootstrap=5)["status"][0] == "ok"
+
+
+def test_impossible_bootstrap_count_raises_memoryerror():
+    t = np.arange(24) * MONTH
+    q = 1000.0 * (1 + 0.8 * 0.5 * t / YEAR) ** (-1 / 0.8)
+    with pytest.raises(MemoryError, match="`n_bootstrap`"):
+        st.fit_decline_batch(t, q, np.array([0, 24]), n_bootstrap=2**60)
+
+
+def test_negative_counts_name_the_argument():
+    t = np.arange(24) * MONTH
+    q = 1000.0 * (1 + 0.8 * 0.5 * t / YEAR) ** (-1 / 0.8)
+    for name in ("min_points", "n_bootstrap", "seed", "max_iter"):
+        with pytest.raises(st.InvalidArgumentError, match=f"`{name}` = -3"):
+            st.fit_decline_batch(t, q, np.array([0, 24]), **{name: -3})
+
+
+def test_unsortable_well_keys_name_the_argument():
+    with pytest.raises(TypeError, match="`well` keys must be mutually sortable"):
+        dc.fit_wells(np.array(["A", None, "B"], dtype=object), [1.0, 2.0, 3.0], [1.0, 2.0, 3.0])

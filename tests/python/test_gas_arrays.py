@@ -192,3 +192,30 @@ def test_scalar_equals_array(sg, t, ps):
     assert [g.z(p, t) for p in ps] == arr.tolist()
     big = np.resize(np.array(ps), 40_000)  # parallel path of the lift
     np.testing.assert_array_equal(g.z(big, t)[: len(ps)], arr)
+
+
+# ---- robustness: unusual inputs (regressions) -----------------------------------------------
+
+
+def test_pseudo_pressure_huge_pressure_ends_and_coerce_gives_nan():
+    import time as _time
+
+    g = st.Gas(0.7)
+    # p = 1e10 psia used to integrate in 1e8 pieces (hours); now at most 20,000 pieces.
+    t0 = _time.perf_counter()
+    assert np.isfinite(g.pseudo_pressure(1e10, 180.0))
+    assert _time.perf_counter() - t0 < 60.0  # generous: a hang guard, not a benchmark
+    # A pressure the Z-factor cannot solve fails itself and every higher pressure (the
+    # integral runs through it): NaN there with coerce, an error naming its index with raise.
+    p = np.array([2000.0, 1e300, 3000.0, 1e301])
+    out = g.pseudo_pressure(p, 180.0, errors="coerce")
+    assert np.isfinite(out[[0, 2]]).all() and np.isnan(out[[1, 3]]).all()
+    np.testing.assert_allclose(out[[0, 2]], g.pseudo_pressure([2000.0, 3000.0], 180.0), rtol=1e-12)
+    with pytest.raises(st.StocktankError):
+        g.pseudo_pressure(p, 180.0)
+
+
+def test_wichert_aziz_names_its_own_arguments():
+    # The sum check used to blame `n2`, which wichert_aziz does not take.
+    with pytest.raises(st.InvalidArgumentError, match=r"`h2s` = 0.5 at index 1"):
+        st.wichert_aziz(380.0, 670.0, 0.6, [0.1, 0.5])

@@ -376,3 +376,99 @@ def test_bad_input_names_the_row():
     with pytest.raises(st.InvalidArgumentError, match=r"at index 1"):
         pvt.at([1000.0, 9000.0])
     assert issubclass(st.SingularError, ValueError)
+
+
+# ---- robustness: unusual inputs (regressions) -----------------------------------------------
+
+
+def test_veh_tiny_dimensionless_time_ends_and_is_not_nan():
+    # tD = 1e-300 used to loop ~1e77 times in the Bessel K integral (cosh h rounded to 1), and
+    # a closed aquifer gave NaN (0 x inf) from tD ~ 1e-4 down. Early time, both kinds and a
+    # closed aquifer alike: WD ~ pD ~ 2 sqrt(tD/pi) (van Everdingen & Hurst 1949).
+    td = np.array([1e-100, 1e-8, 1e-5])
+    early = 2.0 * np.sqrt(td / np.pi)
+    for red in (np.inf, 5.0):
+        wd = st.veh_dimensionless_influx(td, red=red)
+        pd_ = st.veh_dimensionless_pressure(td, red=red)
+        np.testing.assert_allclose(wd, early, rtol=2e-3)
+        np.testing.assert_allclose(pd_, early, rtol=2e-3)
+    # Far below any real time (down to the smallest float): the same early-time value.
+    td = np.array([1e-300, 5e-324])
+    for f in (st.veh_dimensionless_influx, st.veh_dimensionless_pressure):
+        np.testing.assert_allclose(f(td), 2.0 * np.sqrt(td / np.pi), rtol=1e-12)
+        np.testing.assert_allclose(f(td, red=5.0), 2.0 * np.sqrt(td / np.pi), rtol=1e-12)
+    # A huge radius ratio is an infinite aquifer (used to hang the same way).
+    assert st.veh_dimensionless_influx(1.0, red=1e300) == pytest.approx(st.veh_dimensionless_influx(1.0), rel=1e-12)
+
+
+def test_history_length_errors_name_the_python_keywords():
+    pvt = make_pvt()
+    t, p = declining(6, 2000.0)
+    h = synthetic(pvt, t, p, 1e7, 0.0)
+    for key, name in [("np_stb", "np_stb"), ("gp_scf", "gp_scf"), ("wp_stb", "wp_stb")]:
+        bad = dict(h, **{key: h[key][:-1]})
+        with pytest.raises(st.ShapeError, match=f"`{name}` has 5 rows"):
+            mb.oil_mbe_terms(pvt, **bad, **RES)
+    gp = h["gp_scf"]
+    with pytest.raises(st.ShapeError, match="`gp_scf` has 5"):
+        st.pz_fit(gp_scf=gp[:-1], p=h["p"], z=np.full(6, 0.9))
+    table_p = np.arange(500.0, 3501.0, 100.0)
+    with pytest.raises(st.ShapeError, match="`table_p` has 31 rows, `table_z` 30"):
+        mb.gas_history_match(
+            t_days=t, p=p, gp_scf=gp, p_initial=PI, table_p=table_p, table_z=np.full(30, 0.9), temperature_f=200.0
+        )
+
+
+def test_forecast_impossible_step_count_raises_memoryerror():
+    pvt = make_pvt()
+    k = st.CoreyGasOil(swc=0.2, sgc=0.05, sorg=0.15)
+    for f in (mb.muskat_forecast, mb.tarner_forecast):
+        with pytest.raises(MemoryError, match="`n_steps`"):
+            f(pvt, k, p_bubble=PB, p_end=600.0, n_steps=2**60)
+
+
+def test_history_match_batch_rejects_unknown_history_keys():
+    # A misspelt key ("wp_stbb") used to be ignored, silently dropping the water column.
+    pvt = make_pvt()
+    t, p = declining(6, 2000.0)
+    h = synthetic(pvt, t, p, 1e7, 0.0)
+    bad = {("wp_stbb" if k == "wp_stb" else k): v for k, v in h.items()}
+    kw = dict(p_initial=[PI, PI], swi=[0.2, 0.2], cw=[3e-6, 3e-6], cf=[4e-6, 4e-6], m=0.0)
+    with pytest.raises(st.InvalidRecordError, match=r"`histories` at row 1: unknown key 'wp_stbb'"):
+        mb.history_match_batch([pvt, pvt], [h, bad], **kw)
+    out = mb.history_match_batch([pvt, pvt], [h, bad], **kw, errors="coerce")
+    assert isinstance(out[0], dict) and isinstance(out[1], st.InvalidRecordError)
+
+
+def test_history_match_rejects_nan_or_negative_tolerance():
+    # A NaN or negative tolerance used to be accepted and the result still said converged.
+    pvt = make_pvt()
+    t, p = declining(8, 2000.0)
+    h = synthetic(pvt, t, p, 1e7, 0.0)
+    for tol in (float("nan"), -1.0, 0.0):
+        with pytest.raises(st.InvalidArgumentError, match="`tolerance`"):
+            mb.history_match(pvt, **h, **RES, m=0.0, tolerance=tol)
+
+
+def test_negative_step_and_iteration_counts_name_the_argument():
+    pvt = make_pvt()
+    k = st.CoreyGasOil(swc=0.2, sgc=0.05, sorg=0.15)
+    with pytest.raises(st.InvalidArgumentError, match="`n_steps` = -1"):
+        mb.muskat_forecast(pvt, k, p_bubble=PB, p_end=600.0, n_steps=-1)
+    t, p = declining(8, 2000.0)
+    h = synthetic(pvt, t, p, 1e7, 0.0)
+    with pytest.raises(st.InvalidArgumentError, match="`max_iterations` = -1"):
+        mb.history_match(pvt, **h, **RES, m=0.0, max_iterations=-1)
+
+
+def test_bt_errors_name_p_with_index_or_p_initial():
+    # A pressure off the table gave an unindexed "out of range"; a NaN p_initial was
+    # reported as `p`.
+    pvt = make_pvt()
+    with pytest.raises(st.InvalidArgumentError, match=r"`p` = 9000 at index 1"):
+        pvt.bt([1000.0, 9000.0], p_initial=PI)
+    out = pvt.bt([1000.0, 9000.0], p_initial=PI, errors="coerce")
+    assert np.isfinite(out[0]) and np.isnan(out[1])
+    for bad in (float("nan"), 9000.0):
+        with pytest.raises(st.InvalidArgumentError, match="`p_initial`"):
+            pvt.bt([1000.0], p_initial=bad)

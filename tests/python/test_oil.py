@@ -284,3 +284,26 @@ def test_validity_functions_return_bools():
     out = so.bo_saturated_in_range([50.0, 600.0], 0.75, 35.0, 180.0, method="petrosky_farshad")
     assert out.dtype == np.bool_ and list(out) == [False, True]
     assert so.dead_oil_viscosity_in_range(60.0, 150.0, method="glaso") is False
+
+
+# ---- robustness: unusual inputs (regressions) -----------------------------------------------
+
+
+def test_separator_errors_name_the_python_keywords():
+    # The core's `tsep_f` / `psep_psia` used to leak into messages (and shape errors).
+    with pytest.raises(st.InvalidArgumentError, match=r"`separator_p` = -1 at index 1"):
+        st.vasquez_beggs_gas_sg_100psig(0.75, 35.0, 100.0, [100.0, -1.0])
+    with pytest.raises(st.ShapeError, match="`separator_p`"):
+        st.vasquez_beggs_gas_sg_100psig(0.75, 35.0, [100.0, 90.0, 80.0], [100.0, 90.0])
+    with pytest.raises(st.InvalidArgumentError, match="`separator_p`"):
+        st.Oil(api=35.0, gas_sg=0.75, temperature_f=180.0, pb=2500.0, bob=1.3, separator_p=-5.0, separator_t=80.0)
+
+
+def test_error_on_a_scalar_argument_names_the_array_element():
+    # rs = 400 is one number, rsi an array: the error names `rs` (rs <= rsi) and, since
+    # rsi[1] is the bad element, the index of the call's element.
+    with pytest.raises(st.InvalidArgumentError, match=r"`rs` = 400 at index 1: must not exceed rsi"):
+        st.total_fvf(1.3, 0.001, [600.0, 300.0, 500.0], 400.0)
+    # coerce: NaN exactly there.
+    out = st.total_fvf(1.3, 0.001, [600.0, 300.0, 500.0], 400.0, errors="coerce")
+    assert np.isnan(out[1]) and np.isfinite(out[[0, 2]]).all()

@@ -180,3 +180,19 @@ def test_rebase_gas_volume_ideal_gas():
     assert st.units.unit_quantity("kPa") == "pressure"
     with pytest.raises(st.InvalidArgumentError, match="volume"):
         st.units.rebase_gas_volume(-1.0, from_p_sc=14.696, from_t_sc=60.0, to_p_sc=14.65, to_t_sc=60.0)
+
+
+def test_rebase_errors_name_from_and_to_keywords():
+    # Both base conditions used to be reported as `p_sc` / `t_sc`.
+    with pytest.raises(st.InvalidArgumentError, match="`from_p_sc` = -1"):
+        st.rebase_gas_volume(1.0, from_p_sc=-1.0, from_t_sc=60.0, to_p_sc=14.65, to_t_sc=60.0)
+    with pytest.raises(st.InvalidArgumentError, match="`to_t_sc`"):
+        st.rebase_gas_volume(1.0, from_p_sc=14.696, from_t_sc=60.0, to_p_sc=14.65, to_t_sc=-500.0)
+
+
+def test_unit_system_errors_name_the_role():
+    # The message used to name unit_factor's own `from_unit`.
+    with pytest.raises(st.InvalidOptionError, match=r"role `pressure`.*\"furlong\""):
+        UnitSystem(pressure="furlong")
+    with pytest.raises(st.InvalidOptionError, match=r"role `area`"):
+        UnitSystem(area="kPa")

@@ -305,3 +305,35 @@ def test_piston_front_and_critical_saturation():
 def test_fixed_input_cannot_be_correlated():
     with pytest.raises(st.InvalidArgumentError, match="fixed input cannot be correlated"):
         st.probabilistic_in_place("oil", **inputs(fvf=1.3), correlation={("sw", "fvf"): 0.3}, trials=1000)
+
+
+def test_summarize_errors_name_samples():
+    # The core's name `data` used to appear in the message.
+    with pytest.raises(st.InvalidArgumentError, match=r"`samples` = NaN at index 1"):
+        st.summarize([1.0, np.nan, 2.0])
+
+
+def test_impossible_sample_counts_raise_memoryerror_not_abort():
+    # 2**50 samples (9 PB) aborted the process (or panicked with "capacity overflow" for
+    # 2**64 - 1); now a MemoryError naming the argument, as numpy does.
+    d = D.uniform(0.0, 1.0)
+    for n in (2**50, 2**64 - 1):
+        with pytest.raises(MemoryError, match="`n`"):
+            d.sample(n)
+    with pytest.raises(MemoryError, match="`trials`"):
+        st.probabilistic_in_place(
+            "oil", area=D.uniform(1.0, 2.0), thickness=10.0, porosity=0.2, sw=0.3, fvf=1.2, trials=2**50
+        )
+    assert d.sample(10).shape == (10,)
+
+
+def test_negative_counts_and_seeds_name_the_argument():
+    # These used to raise OverflowError("can't convert negative int to unsigned").
+    d = D.uniform(0.0, 1.0)
+    for kw, name in [(dict(n=-1), "n"), (dict(n=3, seed=-1), "seed"), (dict(n=3, stream=-2), "stream")]:
+        with pytest.raises(st.InvalidArgumentError, match=f"`{name}` = -"):
+            d.sample(**kw)
+    with pytest.raises(st.InvalidArgumentError, match="`trials` = -5"):
+        st.probabilistic_in_place("oil", area=1.0, thickness=10.0, porosity=0.2, sw=0.3, fvf=1.2, trials=-5)
+    # The whole unsigned range still works.
+    assert d.sample(2, seed=2**64 - 1, stream=2**64 - 1).shape == (2,)
