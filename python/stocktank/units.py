@@ -187,10 +187,8 @@ class UnitSystem:
 def _convert_any(value: Any, from_unit: str, to_unit: str) -> Any:
     if value is None or from_unit == to_unit:
         return value
-    s, o = unit_factor(from_unit, to_unit)
-    if isinstance(value, (int, float)) and not isinstance(value, bool):
-        return float(value) * s + o
     if hasattr(value, "params") and hasattr(value, "kind"):  # a Distribution
+        s, o = unit_factor(from_unit, to_unit)
         return _scale_distribution(value, s, o)
     return convert_units(value, from_unit, to_unit)
 

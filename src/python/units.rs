@@ -16,8 +16,11 @@ fn convert_units(
     to_unit: &str,
 ) -> PyResult<Py<PyAny>> {
     let (s, o) = convert::factor(from_unit, to_unit)?;
+    let from = convert::unit("from_unit", from_unit)?;
     call(py, [&value], move |[x]| {
-        lift(["value"], [x], OnError::Raise, |[x]| Ok(x * s + o))
+        lift(["value"], [x], OnError::Raise, |[x]| {
+            Ok(convert::check_absolute("value", x, &from)? * s + o)
+        })
     })
 }
 

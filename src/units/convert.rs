@@ -349,7 +349,51 @@ pub fn factor(from_unit: &str, to_unit: &str) -> Result<(f64, f64)> {
 /// Thompson, A., Taylor, B.N. (2008). NIST Special Publication 811, Appendix B.
 pub fn convert(value: f64, from_unit: &str, to_unit: &str) -> Result<f64> {
     let (s, o) = factor(from_unit, to_unit)?;
+    check_absolute("value", value, &unit("from_unit", from_unit)?)?;
     Ok(value * s + o)
+}
+
+/// Check that `value`, in the unit `u`, is not below its quantity's absolute zero: a
+/// pressure (Pa, absolute) or a temperature (K) cannot be negative. Gauge units and the
+/// relative temperature scales have their zero elsewhere (-14.696 psig and -459.67 degF
+/// are the absolute zeros); other quantities are not checked here.
+///
+/// # Arguments
+/// * `arg` - the argument name for the error.
+/// * `value` - the value in `u`.
+/// * `u` - its unit.
+///
+/// # Returns
+/// `value` unchanged. NaN passes.
+///
+/// # Errors
+/// [`Error::InvalidArgument`] naming `arg` when the value is below absolute zero.
+///
+/// # Examples
+/// ```
+/// use stocktank::units::convert::{check_absolute, unit};
+/// assert!(check_absolute("t", -400.0, &unit("u", "degF").unwrap()).is_ok());
+/// assert!(check_absolute("t", -500.0, &unit("u", "degF").unwrap()).is_err());
+/// assert!(check_absolute("p", -15.0, &unit("u", "psig").unwrap()).is_err());
+/// ```
+///
+/// # References
+/// Thompson, A., Taylor, B.N. (2008). NIST Special Publication 811 (the absolute scales).
+pub fn check_absolute(arg: &'static str, value: f64, u: &UnitMap) -> Result<f64> {
+    let si = value * u.scale + u.offset;
+    match u.quantity {
+        Quantity::Temperature if si < 0.0 => Err(Error::invalid(
+            arg,
+            value,
+            "must not be below absolute zero (0 K, -459.67 degF, -273.15 degC)",
+        )),
+        Quantity::Pressure if si < 0.0 => Err(Error::invalid(
+            arg,
+            value,
+            "must not be below zero absolute pressure (for a gauge unit, -1 atm)",
+        )),
+        _ => Ok(value),
+    }
 }
 
 /// Move an ideal-gas standard volume from one set of base conditions to another.
@@ -391,6 +435,21 @@ pub fn rebase_gas_volume(
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn values_below_absolute_zero_are_errors() {
+        // Absolute zero: 0 K = -273.15 degC = -459.67 degF = 0 degR (NIST SP 811).
+        assert!(convert(-500.0, "degF", "K").is_err());
+        assert!(convert(-274.0, "degC", "degF").is_err());
+        assert!(convert(-1.0, "degR", "degF").is_err());
+        assert!((convert(-459.67, "degF", "K").unwrap()).abs() < 1e-9);
+        // 1 atm = 14.695949 psi: -14.7 psig is below a perfect vacuum, -14.69 is not.
+        assert!(convert(-14.7, "psig", "psia").is_err());
+        assert!(convert(-14.69, "psig", "psia").unwrap() > 0.0);
+        assert!(convert(-1.0, "kPa", "psia").is_err());
+        // Other quantities are not checked here.
+        assert!(convert(-1.0, "ft", "m").is_ok());
+    }
 
     #[test]
     fn round_trips_and_identity() {

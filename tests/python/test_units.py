@@ -196,3 +196,18 @@ def test_unit_system_errors_name_the_role():
         UnitSystem(pressure="furlong")
     with pytest.raises(st.InvalidOptionError, match=r"role `area`"):
         UnitSystem(area="kPa")
+
+
+def test_values_below_absolute_zero_are_errors():
+    # Absolute zero is 0 K = -273.15 degC = -459.67 degF, and 1 atm = 14.695949 psi
+    # (NIST SP 811): such values used to convert silently (-500 degF gave -22.4 K).
+    with pytest.raises(st.InvalidArgumentError, match=r"`value` = -500 at index 1: must not be below absolute zero"):
+        st.units.convert([60.0, -500.0], "degF", "K")
+    with pytest.raises(st.InvalidArgumentError, match="absolute pressure"):
+        st.units.convert(-15.0, "psig", "psia")
+    assert st.units.convert(-459.67, "degF", "K") == pytest.approx(0.0, abs=1e-9)
+    assert st.units.convert(-14.69, "psig", "psia") > 0.0
+    assert st.units.convert(-3.0, "ft", "m") == pytest.approx(-0.9144)  # not checked
+    # The metric wrappers convert through the same function.
+    with pytest.raises(st.InvalidArgumentError, match="absolute zero"):
+        UnitSystem(temperature="degC").to_field(-300.0, "temperature")
