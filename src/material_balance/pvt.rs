@@ -2,6 +2,7 @@
 //! interpolated by monotone piecewise-cubic Hermite curves.
 
 use crate::error::{Error, Result};
+use crate::oil::{Rule, Violation};
 
 /// Black-oil properties at one pressure, interpolated from a [`PvtTable`].
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -234,6 +235,73 @@ impl PvtTable {
         Ok(self)
     }
 
+    /// The consistency check of the table's rows, for lab or hand-made tables: every
+    /// violation, interval by interval in pressure order (empty for a consistent table).
+    /// The table is still usable; material balance on an inconsistent table gives
+    /// unphysical expansion terms.
+    ///
+    /// # Formula
+    /// Over each interval of rows (p[i-1], p[i]):
+    /// ```text
+    /// Rs[i] >= Rs[i-1]                                  (rs_falling_with_pressure)
+    /// Bg[i] <  Bg[i-1]                                  (bg_not_falling_with_pressure)
+    /// Rs rising:  Bg_mid (Rs[i] - Rs[i-1]) > Bo[i] - Bo[i-1]   (negative_total_compressibility)
+    /// Rs constant (undersaturated): Bo[i] < Bo[i-1]      (bo_not_falling_above_pb)
+    /// ```
+    /// with Bg_mid the mean of the two rows' Bg (rb/scf). The third rule is the black-oil
+    /// total compressibility below the bubble point, Bg dRs/dp > dBo/dp (common practice,
+    /// no source; the same rules as [`crate::oil::BlackOilTable::check`]).
+    ///
+    /// # Returns
+    /// The violations, each at the upper pressure of its interval (psia) with the numbers
+    /// behind it.
+    ///
+    /// # Examples
+    /// ```
+    /// use stocktank::material_balance::PvtTable;
+    /// use stocktank::oil::Rule;
+    /// // Rs falls between the last two rows: a typing error in a lab table.
+    /// let t = PvtTable::new(vec![1000.0, 2000.0, 3000.0], vec![1.20, 1.30, 1.40],
+    ///     vec![300.0, 500.0, 450.0], vec![0.0026, 0.0013, 0.0009]).unwrap();
+    /// let v = t.check();
+    /// assert_eq!(v[0].rule, Rule::RsFallingWithPressure);
+    /// assert_eq!(v[0].p_psia, 3000.0);
+    /// ```
+    pub fn check(&self) -> Vec<Violation> {
+        let (p, bo, rs, bg) = (&self.p, &self.bo.y, &self.rs.y, &self.bg.y);
+        let mut v = Vec::new();
+        let mut push = |i: usize, rule: Rule, detail: String| {
+            v.push(Violation {
+                p_psia: p[i],
+                rule,
+                detail,
+            })
+        };
+        for i in 1..p.len() {
+            let over = format!("over {}-{} psia", p[i - 1], p[i]);
+            let (d_rs, d_bo) = (rs[i] - rs[i - 1], bo[i] - bo[i - 1]);
+            if d_rs < 0.0 {
+                let d = format!("Rs {} -> {} scf/STB {over}", rs[i - 1], rs[i]);
+                push(i, Rule::RsFallingWithPressure, d);
+            }
+            if bg[i] >= bg[i - 1] {
+                let d = format!("Bg {} -> {} rb/scf {over}", bg[i - 1], bg[i]);
+                push(i, Rule::BgNotFallingWithPressure, d);
+            }
+            if d_rs > 0.0 {
+                let gas = 0.5 * (bg[i] + bg[i - 1]) * d_rs;
+                if gas <= d_bo {
+                    let d = format!("Bg dRs = {gas:e} <= dBo = {d_bo:e} rb/STB {over}");
+                    push(i, Rule::NegativeTotalCompressibility, d);
+                }
+            } else if d_rs == 0.0 && d_bo >= 0.0 {
+                let d = format!("Bo {} -> {} rb/STB at constant Rs {over}", bo[i - 1], bo[i]);
+                push(i, Rule::BoNotFallingAbovePb, d);
+            }
+        }
+        v
+    }
+
     /// Lowest and highest pressure of the table, psia.
     ///
     /// # Examples
@@ -373,4 +441,46 @@ pub(super) fn interval(grid: &[f64], p: f64, table: &str) -> Result<usize> {
         j if j >= n => n - 2,
         j => j - 1,
     })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn check_of_a_consistent_table_is_empty_and_each_rule_fires() {
+        // Facts of the trade (common practice, no source): below Pb Rs and Bo rise with p,
+        // Bg falls, and Bg dRs > dBo; above Pb Rs is constant and Bo falls.
+        let p = vec![1000.0, 2000.0, 3000.0, 4000.0];
+        let bo = vec![1.15, 1.25, 1.35, 1.34];
+        let rs = vec![200.0, 400.0, 600.0, 600.0];
+        let bg = vec![0.0028, 0.0014, 0.0010, 0.0008];
+        let ok = PvtTable::new(p.clone(), bo.clone(), rs.clone(), bg.clone()).unwrap();
+        assert!(ok.check().is_empty());
+        let rules = |bo: &[f64], rs: &[f64], bg: &[f64]| -> Vec<(f64, Rule)> {
+            PvtTable::new(p.clone(), bo.to_vec(), rs.to_vec(), bg.to_vec())
+                .unwrap()
+                .check()
+                .into_iter()
+                .map(|v| (v.p_psia, v.rule))
+                .collect()
+        };
+        assert_eq!(
+            rules(&bo, &[200.0, 400.0, 350.0, 350.0], &bg),
+            vec![(3000.0, Rule::RsFallingWithPressure)]
+        );
+        assert_eq!(
+            rules(&bo, &rs, &[0.0028, 0.0014, 0.0015, 0.0008]),
+            vec![(3000.0, Rule::BgNotFallingWithPressure)]
+        );
+        // dBo = 0.5 rb/STB against Bg dRs = 0.0012 x 200 = 0.24: negative total compressibility.
+        assert_eq!(
+            rules(&[1.15, 1.25, 1.75, 1.74], &rs, &bg),
+            vec![(3000.0, Rule::NegativeTotalCompressibility)]
+        );
+        assert_eq!(
+            rules(&[1.15, 1.25, 1.35, 1.36], &rs, &bg),
+            vec![(4000.0, Rule::BoNotFallingAbovePb)]
+        );
+    }
 }

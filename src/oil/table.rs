@@ -136,6 +136,10 @@ pub enum Rule {
     DensityNotRisingAbovePb,
     /// A value is NaN or infinite, or a property that must be positive is not.
     NonPhysicalValue,
+    /// Rs must not fall as pressure rises (gas only leaves solution as pressure falls).
+    RsFallingWithPressure,
+    /// Bg must fall as pressure rises (a gas is compressed).
+    BgNotFallingWithPressure,
 }
 
 impl Rule {
@@ -151,6 +155,8 @@ impl Rule {
             Rule::BoNotFallingAbovePb => "bo_not_falling_above_pb",
             Rule::DensityNotRisingAbovePb => "density_not_rising_above_pb",
             Rule::NonPhysicalValue => "non_physical_value",
+            Rule::RsFallingWithPressure => "rs_falling_with_pressure",
+            Rule::BgNotFallingWithPressure => "bg_not_falling_with_pressure",
         }
     }
 }

@@ -36,7 +36,8 @@ fn arr<'py>(py: Python<'py>, v: Vec<f64>) -> Bound<'py, PyAny> {
 
 /// A black-oil PVT table against pressure: p psia (strictly ascending), Bo rb/STB, Rs
 /// scf/STB, Bg rb/scf, optional Bw rb/STB and viscosities mu_o, mu_g cp. Interpolated by
-/// monotone cubics (Fritsch & Carlson 1980); never extrapolated.
+/// monotone cubics (Fritsch & Carlson 1980); never extrapolated. ``check()`` lists the rows
+/// of a lab or hand-made table that break the black-oil consistency rules.
 #[pyclass(name = "PvtTable", module = "stocktank._core", frozen)]
 #[derive(Clone)]
 pub struct PvtTable {
@@ -194,6 +195,19 @@ impl PvtTable {
                 })
             })
         })
+    }
+    /// The consistency check of the rows: a list of (p_psia, rule, detail), empty for a
+    /// consistent table. Rules: ``rs_falling_with_pressure``,
+    /// ``bg_not_falling_with_pressure``, ``negative_total_compressibility`` (where Rs rises,
+    /// Bg dRs must exceed dBo) and ``bo_not_falling_above_pb`` (where Rs is constant).
+    fn check<'py>(&self, py: Python<'py>) -> PyResult<Bound<'py, PyList>> {
+        let items: Vec<(f64, &'static str, String)> = self
+            .inner
+            .check()
+            .into_iter()
+            .map(|x| (x.p_psia, x.rule.name(), x.detail))
+            .collect();
+        PyList::new(py, items)
     }
     fn __eq__(&self, other: &Bound<'_, PyAny>) -> bool {
         other

@@ -472,3 +472,29 @@ def test_bt_errors_name_p_with_index_or_p_initial():
     for bad in (float("nan"), 9000.0):
         with pytest.raises(st.InvalidArgumentError, match="`p_initial`"):
             pvt.bt([1000.0], p_initial=bad)
+
+
+def test_pvt_table_check_reports_unphysical_rows():
+    # Facts of the trade (common practice, no source): Rs does not fall and Bg falls as
+    # pressure rises; where Rs rises, Bg dRs > dBo (positive total compressibility); at
+    # constant Rs (above Pb) Bo falls. A correlation-built table meets them all.
+    oil = st.Oil(api=33.0, gas_sg=0.78, temperature_f=190.0, gor=550.0)
+    t = oil.table(np.linspace(300.0, 4500.0, 30))
+    cols = dict(p=t["p"], bo=t["bo"], rs=t["rs"], bg=t["bg"] / 5.614583333333333)  # rcf -> rb
+    assert st.PvtTable(**cols).check() == []
+    k = 5
+    bad = {c: v.copy() for c, v in cols.items()}
+    bad["rs"][k] = bad["rs"][k - 1] - 1.0  # a typing error: Rs falls at row k
+    bad["bg"][k + 10] = bad["bg"][k + 9] * 1.01
+    rules = {(p, rule) for p, rule, _ in st.PvtTable(**bad).check()}
+    assert (cols["p"][k], "rs_falling_with_pressure") in rules
+    assert (cols["p"][k + 10], "bg_not_falling_with_pressure") in rules
+    # A Bo step up above Pb is reported, and nothing else.
+    above = {c: v.copy() for c, v in cols.items()}
+    above["bo"][-1] = above["bo"][-2] + 0.01
+    v = st.PvtTable(**above).check()
+    assert [(p, r) for p, r, _ in v] == [(cols["p"][-1], "bo_not_falling_above_pb")]
+    # Bo rising faster than the released gas can fill: negative total compressibility.
+    steep = {c: v.copy() for c, v in cols.items()}
+    steep["bo"][2] = steep["bo"][1] + 0.2
+    assert any(r == "negative_total_compressibility" and p == cols["p"][2] for p, r, _ in st.PvtTable(**steep).check())
