@@ -241,7 +241,7 @@ impl PvtTable {
     /// unphysical expansion terms.
     ///
     /// # Formula
-    /// Over each interval of rows (p[i-1], p[i]):
+    /// Over each interval between two consecutive rows `i - 1` and `i`:
     /// ```text
     /// Rs[i] >= Rs[i-1]                                  (rs_falling_with_pressure)
     /// Bg[i] <  Bg[i-1]                                  (bg_not_falling_with_pressure)
