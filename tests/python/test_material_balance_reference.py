@@ -150,21 +150,23 @@ def test_fetkovich_matches_its_ode_at_constant_boundary_pressure():
     assert got[0] == pytest.approx(c * (pi - 0.5 * (pi + p_hold)) * -np.expm1(-1.0 / tau), rel=1e-13)
 
 
+def wd_laplace(s, red):
+    """Laplace transform of WD (constant terminal pressure) of a radial aquifer, infinite or
+    closed at reD (van Everdingen & Hurst 1949), with mpmath's Bessel functions."""
+    x = mpmath.sqrt(s)
+    if np.isinf(red):
+        return mpmath.besselk(1, x) / (s**1.5 * mpmath.besselk(0, x))
+    r = red * x
+    num = mpmath.besseli(1, r) * mpmath.besselk(1, x) - mpmath.besselk(1, r) * mpmath.besseli(1, x)
+    den = s**1.5 * (mpmath.besseli(0, x) * mpmath.besselk(1, r) + mpmath.besselk(0, x) * mpmath.besseli(1, r))
+    return num / den
+
+
 def talbot_wd(td, red):
-    """WD(tD) by mpmath's Talbot inversion of the Laplace-space solution of van Everdingen
-    & Hurst (1949), with mpmath's Bessel functions (independent of the library's Stehfest)."""
+    """WD(tD) by mpmath's Talbot inversion of the Laplace-space solution (independent of the
+    library's Stehfest inversion and Bessel functions)."""
     mpmath.mp.dps = 15
-
-    def f(s):
-        x = mpmath.sqrt(s)
-        if np.isinf(red):
-            return mpmath.besselk(1, x) / (s**1.5 * mpmath.besselk(0, x))
-        r = red * x
-        num = mpmath.besseli(1, r) * mpmath.besselk(1, x) - mpmath.besselk(1, r) * mpmath.besseli(1, x)
-        den = s**1.5 * (mpmath.besseli(0, x) * mpmath.besselk(1, r) + mpmath.besselk(0, x) * mpmath.besseli(1, r))
-        return num / den
-
-    return float(mpmath.invertlaplace(f, td, method="talbot"))
+    return float(mpmath.invertlaplace(lambda s: wd_laplace(s, red), td, method="talbot"))
 
 
 @pytest.mark.parametrize("red", [np.inf, 5.0])
@@ -263,17 +265,7 @@ def talbot_pd(td, red):
     constant-pressure and constant-rate solutions are reciprocal in Laplace space, van
     Everdingen & Hurst 1949), inverted by mpmath's Talbot method."""
     mpmath.mp.dps = 15
-
-    def f(s):
-        x = mpmath.sqrt(s)
-        if np.isinf(red):
-            return mpmath.besselk(0, x) / (s**1.5 * mpmath.besselk(1, x))
-        r = red * x
-        num = mpmath.besseli(1, r) * mpmath.besselk(1, x) - mpmath.besselk(1, r) * mpmath.besseli(1, x)
-        den = s**1.5 * (mpmath.besseli(0, x) * mpmath.besselk(1, r) + mpmath.besselk(0, x) * mpmath.besseli(1, r))
-        return den / (num * s**3)
-
-    return float(mpmath.invertlaplace(f, td, method="talbot"))
+    return float(mpmath.invertlaplace(lambda s: 1 / (s**3 * wd_laplace(s, red)), td, method="talbot"))
 
 
 @pytest.mark.parametrize("red", [np.inf, 8.0])
