@@ -136,8 +136,53 @@ pub(crate) fn rename_arg(e: Error, names: &[(&'static str, &'static str)]) -> Er
     }
 }
 
-/// Any array-like input (float, int, list, any-dtype array), converted to float64.
-pub(crate) type In<'py> = PyArrayLikeDyn<'py, f64, AllowTypeChange>;
+/// Any array-like input (float, int, list, any-dtype array), converted to float64. A
+/// numpy masked array gives NaN at its masked elements (its data there is not a value of
+/// the user's; NaN in gives NaN out).
+pub(crate) struct In<'py>(PyArrayLikeDyn<'py, f64, AllowTypeChange>);
+
+impl<'py> std::ops::Deref for In<'py> {
+    type Target = PyArrayLikeDyn<'py, f64, AllowTypeChange>;
+
+    fn deref(&self) -> &Self::Target {
+        &self.0
+    }
+}
+
+impl<'a, 'py> FromPyObject<'a, 'py> for In<'py> {
+    type Error = PyErr;
+
+    fn extract(ob: Borrowed<'a, 'py, PyAny>) -> PyResult<Self> {
+        if is_masked_array(&ob)? {
+            let filled = ob
+                .call_method1("astype", ("float64",))?
+                .call_method1("filled", (f64::NAN,))?;
+            return Ok(Self(filled.extract()?));
+        }
+        Ok(Self(ob.extract()?))
+    }
+}
+
+/// Whether `ob` is a `numpy.ma.MaskedArray` (looked for only among ndarray subclasses, so
+/// plain arrays, numbers and lists pay one type comparison).
+fn is_masked_array(ob: &Borrowed<'_, '_, PyAny>) -> PyResult<bool> {
+    use numpy::PyUntypedArray;
+    use pyo3::sync::PyOnceLock;
+    use pyo3::types::PyType;
+    let py = ob.py();
+    let Ok(arr) = ob.cast::<PyUntypedArray>() else {
+        return Ok(false);
+    };
+    if arr
+        .get_type()
+        .is(<PyUntypedArray as pyo3::PyTypeInfo>::type_object(py))
+    {
+        return Ok(false);
+    }
+    static MASKED: PyOnceLock<Py<PyType>> = PyOnceLock::new();
+    let masked = MASKED.import(py, "numpy.ma", "MaskedArray")?;
+    ob.is_instance(masked)
+}
 
 /// Parse the `errors=` keyword.
 #[allow(dead_code)] // used by the domain bindings as they land

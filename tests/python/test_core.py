@@ -113,3 +113,21 @@ def test_forked_processes_start_their_own_threads():
             got = pool.map_async(_parallel_work_in_child, [0, 1]).get(timeout=120)
     assert [g[:3] for g in got] == [here[:3]] * 2
     assert [g[3] for g in got] == [1, 1]  # the setting is inherited
+
+
+def test_masked_arrays_give_nan_at_masked_elements():
+    # A masked element is not a value of the user's: it must not be computed from the
+    # data hidden under the mask (numpy's own np.asarray would drop the mask). NaN in gives
+    # NaN out; the other elements equal the plain-array results; the input is unchanged.
+    ppr = np.ma.masked_array([1.0, 2.0, 3.0], mask=[False, True, False])
+    z = st.z_factor(ppr, 1.5)
+    assert type(z) is np.ndarray and np.isnan(z[1])
+    np.testing.assert_array_equal(z[[0, 2]], st.z_factor(np.array([1.0, 3.0]), 1.5))
+    np.testing.assert_array_equal(ppr.data, [1.0, 2.0, 3.0])
+    np.testing.assert_array_equal(ppr.mask, [False, True, False])
+    # Integer data and a masked second argument too.
+    z2 = st.z_factor(2.0, np.ma.masked_array([1, 2], mask=[True, False]))
+    assert np.isnan(z2[0]) and z2[1] == st.z_factor(2.0, 2.0)
+    # A masked negative value is not an error: it is missing, not bad.
+    g = st.Gas(0.7).z(np.ma.masked_array([1000.0, -5.0], mask=[False, True]), 200.0)
+    assert np.isnan(g[1]) and np.isfinite(g[0])
