@@ -1452,6 +1452,14 @@ fn gas_history_match<'py>(
 
 // ---- Forecast -------------------------------------------------------------------------------------
 
+/// The `n_steps` of a solution-gas-drive forecast as a count whose table (a row of a dozen
+/// numbers per step) can be allocated: an error naming `n_steps` otherwise.
+fn forecast_steps(n_steps: i128) -> PyResult<usize> {
+    let n: usize = super::whole("n_steps", n_steps)?;
+    super::check_memory("n_steps", n, 16 * std::mem::size_of::<f64>())?;
+    Ok(n)
+}
+
 /// Solution-gas-drive forecast below the bubble point by Muskat (1945): dict of per-step
 /// ``p`` (psia), ``so``, ``sg`` (fractions), ``krg_over_kro``, ``gor`` (scf/STB),
 /// ``np_over_n`` (recovery factor), ``gp_over_n`` (scf/STB) and ``stopped_early``. The PVT
@@ -1469,9 +1477,7 @@ fn muskat_forecast<'py>(
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
-    let n_steps: usize = super::whole("n_steps", n_steps)?;
-    // A row of a dozen numbers per step.
-    super::check_memory("n_steps", n_steps, 16 * std::mem::size_of::<f64>())?;
+    let n_steps = forecast_steps(n_steps)?;
     let f = py.detach(|| mb::muskat_forecast(table, &k, p_bubble, p_end, n_steps))?;
     forecast_dict(py, f)
 }
@@ -1506,9 +1512,7 @@ fn tarner_forecast<'py>(
 ) -> PyResult<Bound<'py, PyDict>> {
     let k = relperm.0;
     let table = &pvt.inner;
-    let n_steps: usize = super::whole("n_steps", n_steps)?;
-    // A row of a dozen numbers per step.
-    super::check_memory("n_steps", n_steps, 16 * std::mem::size_of::<f64>())?;
+    let n_steps = forecast_steps(n_steps)?;
     let f = py.detach(|| mb::tarner_forecast(table, &k, p_bubble, p_end, n_steps))?;
     let d = forecast_dict(py, f.forecast)?;
     let it: Vec<u64> = f.iterations.iter().map(|&v| v as u64).collect();
